@@ -1,0 +1,36 @@
+import { apiError } from "./errors.server";
+
+/**
+ * Reads a JSON body without trusting Content-Length: bytes are counted as they arrive and the
+ * read stops at `maxBytes`. Throws a ready API error Response (413 or 400).
+ */
+export async function readJsonBody(request: Request, maxBytes: number): Promise<unknown> {
+  const declared = Number(request.headers.get("content-length") ?? "0");
+  const tooLarge = () =>
+    apiError(413, "body_too_large", `The request body is larger than ${Math.round(maxBytes / 1024)} KiB.`, [
+      { path: "", message: "Send fewer runs per call, or attach long series as CSV uploads." },
+    ]);
+  if (declared > maxBytes) throw tooLarge();
+  if (!request.body) throw apiError(400, "empty_body", "The request has no body; send a JSON object.");
+  const reader = request.body.getReader();
+  const chunks: Uint8Array[] = [];
+  let total = 0;
+  for (;;) {
+    const { done, value } = await reader.read();
+    if (done) break;
+    total += value.byteLength;
+    if (total > maxBytes) {
+      await reader.cancel();
+      throw tooLarge();
+    }
+    chunks.push(value);
+  }
+  const text = Buffer.concat(chunks).toString("utf8");
+  try {
+    return JSON.parse(text);
+  } catch (error) {
+    throw apiError(400, "invalid_json", "The request body is not valid JSON.", [
+      { path: "", message: error instanceof Error ? error.message : String(error) },
+    ]);
+  }
+}

@@ -1,0 +1,144 @@
+/**
+ * zod schemas of the exchange formats: `runproof.run/1`, `runproof.claim/1` and the
+ * check input. Every object is strict (unknown keys are rejected with their path).
+ * The run and claim schemas carry no transforms, so they export to JSON Schema.
+ */
+import * as z from "zod";
+import { policySchema } from "./policy.ts";
+
+const num = () => z.number();
+const pos = () => z.number().positive();
+const nonneg = () => z.number().nonnegative();
+const text = (what: string) => z.string().min(1).describe(what);
+
+const boundarySide = z
+  .object({
+    velocity: z.enum(["no-slip", "stress-free"]),
+    thermal: z.enum(["fixed-value", "fixed-flux"]),
+    magnetic: z.enum(["insulating", "conducting"]),
+    rotation: z.enum(["fixed", "free"]),
+  })
+  .partial()
+  .strict();
+
+const dimensional = (what: string) => z.string().min(1).describe(`${what}, a number with a unit`);
+
+export const materialSchema = z
+  .object({
+    nu: dimensional("kinematic viscosity, e.g. \"1e-6 m^2/s\""),
+    kappa: dimensional("thermal diffusivity, e.g. \"1e-5 m^2/s\""),
+    eta: dimensional("magnetic diffusivity, e.g. \"0.8 m^2/s\""),
+    omega: dimensional("rotation rate, e.g. \"7.292115e-5 rad/s\""),
+    outerRadius: dimensional("outer radius r_o, e.g. \"3480 km\""),
+    alpha: dimensional("thermal expansivity, e.g. \"1e-5 1/K\""),
+    gravity: dimensional("gravity at the outer boundary g0, e.g. \"10.7 m/s^2\""),
+    deltaT: dimensional("temperature contrast, e.g. \"1e-3 K\""),
+    density: dimensional("density, e.g. \"1.1e4 kg/m^3\""),
+    buoyancyFlux: dimensional("advected buoyancy flux F, e.g. \"1e4 kg/s\""),
+  })
+  .partial()
+  .strict();
+
+export const runSchema = z
+  .object({
+    format: z.literal("runproof.run/1"),
+    label: text("label, unique within a submission"),
+    software: z.object({ name: z.string(), version: z.string() }).partial().strict().optional(),
+    geometry: z.object({ radiusRatio: z.number().gt(0).lt(1).describe("chi = r_i / r_o") }).strict(),
+    conventions: z
+      .object({
+        lengthScale: z.enum(["gap", "outer-radius"]),
+        timeScale: z.enum(["viscous", "magnetic", "thermal", "rotation"]),
+        rotationFactor: z.union([z.literal(1), z.literal(2)]),
+        rayleigh: z.enum(["classical", "rotating", "buoyancy", "flux"]),
+      })
+      .strict(),
+    controls: z
+      .object({ E: pos(), Ra: pos(), Pr: pos(), Pm: pos().optional() })
+      .strict()
+      .describe("control numbers as configured, in the declared conventions; Pm absent for a non-magnetic run"),
+    material: materialSchema.optional(),
+    boundaries: z.object({ inner: boundarySide, outer: boundarySide }).partial().strict().optional(),
+    stableLayer: z
+      .object({
+        position: z.enum(["bottom", "top"]),
+        edgeRadius: pos().describe("radius of the layer's edge, in the run's length unit"),
+        NOverOmega: nonneg().optional(),
+      })
+      .strict()
+      .optional(),
+    resolution: z
+      .object({
+        radialPoints: z.number().int().min(2),
+        radialGrid: z.enum(["chebyshev", "uniform", "stretched"]),
+        maxDegree: z.number().int().min(1),
+        maxOrder: z.number().int().min(0),
+        hyperdiffusion: z.boolean(),
+      })
+      .partial()
+      .strict()
+      .optional(),
+    time: z
+      .object({ scheme: z.string(), step: pos(), start: num(), end: num() })
+      .partial()
+      .strict()
+      .optional()
+      .describe("times in the run's time unit"),
+    diagnostics: z
+      .object({
+        Re: nonneg(), Rm: nonneg(), Ro: nonneg(), Rol: nonneg(), Lo: nonneg(), Lambda: nonneg(),
+        kineticEnergy: nonneg(), magneticEnergy: nonneg(),
+        dipolarity: z.number().min(0).max(1), ohmicFraction: z.number().min(0).max(1),
+        Nu: pos().describe("Nusselt number"),
+        driftFrequency: num().describe("drift frequency of the pattern (benchmark)"),
+        pointTemperature: num().describe("benchmark point value T"),
+        pointUphi: num().describe("benchmark point value u_phi"),
+        pointBtheta: num().describe("benchmark point value B_theta"),
+      })
+      .partial()
+      .strict()
+      .optional(),
+    benchmark: z.enum(["dynamo-2001-case-0", "dynamo-2001-case-1"]).optional(),
+  })
+  .strict();
+
+export type RunRecord = z.infer<typeof runSchema>;
+
+export const claimSchema = z
+  .object({
+    format: z.literal("runproof.claim/1"),
+    title: z.string(),
+    runs: z.array(z.object({ label: text("run label"), part: text("part, e.g. reference or varied") }).strict()).min(1),
+    varies: z.array(z.string().min(1)).optional().describe("dotted paths of the run record that may differ"),
+    stated: z
+      .array(
+        z
+          .object({
+            quantity: text("a key of derived (dotted for nested ones) or a controls key"),
+            value: z.union([z.string().min(1), z.number()]),
+            run: z.string().min(1).optional(),
+          })
+          .strict(),
+      )
+      .optional(),
+  })
+  .strict();
+
+export type ClaimRecord = z.infer<typeof claimSchema>;
+
+const columns = z.record(z.string(), z.array(z.number()));
+
+export const checkInputSchema = z
+  .object({
+    runs: z.array(runSchema).min(1),
+    claim: claimSchema.optional(),
+    policy: policySchema.optional(),
+    series: z.record(z.string(), columns).optional(),
+    spectra: z.record(z.string(), columns).optional(),
+  })
+  .strict();
+
+export type CheckInput = z.infer<typeof checkInputSchema>;
+
+/** Columns of one attached CSV: name → values, first column `t` or `l`. */
+export type Columns = Record<string, number[]>;

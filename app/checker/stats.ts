@@ -1,0 +1,153 @@
+/**
+ * Output analysis of simulation time series.
+ * - MSER-5: White 1997 (Simulation 69), White, Cobb & Spratt 2000 (WSC).
+ * - batch means standard error with ⌊√n⌋ batches (common practice).
+ * - two-halves z score in the spirit of Geweke 1992.
+ * - integrated autocorrelation time τ = 1 + 2Σρ(t) with Sokal's automatic window
+ *   (Sokal 1997, "Monte Carlo methods in statistical mechanics"), ESS = n/τ.
+ */
+
+export function mean(x: readonly number[]): number {
+  let s = 0;
+  for (const v of x) s += v;
+  return s / x.length;
+}
+
+/** Unbiased sample variance (n − 1). */
+export function variance(x: readonly number[]): number {
+  if (x.length < 2) return 0;
+  const m = mean(x);
+  let s = 0;
+  for (const v of x) s += (v - m) * (v - m);
+  return s / (x.length - 1);
+}
+
+/** Means of consecutive batches of `size` values (a trailing partial batch is dropped). */
+export function batchMeans(x: readonly number[], size: number): number[] {
+  const out: number[] = [];
+  for (let i = 0; i + size <= x.length; i += size) out.push(mean(x.slice(i, i + size)));
+  return out;
+}
+
+/**
+ * MSER-5 truncation: index of the first observation to keep. Minimises
+ * MSER(d) = Σ_{j>d}(Z_j − Z̄_d)²/(k − d)² over batch means Z of size 5, d ≤ k/2.
+ */
+export function mser(x: readonly number[], batch = 5): { truncation: number; batches: number } {
+  const z = batchMeans(x, batch);
+  const k = z.length;
+  if (k < 4) return { truncation: 0, batches: k };
+  // suffix sums for O(k)
+  const s1 = new Array<number>(k + 1).fill(0);
+  const s2 = new Array<number>(k + 1).fill(0);
+  for (let j = k - 1; j >= 0; j--) {
+    const v = z[j] ?? 0;
+    s1[j] = (s1[j + 1] ?? 0) + v;
+    s2[j] = (s2[j + 1] ?? 0) + v * v;
+  }
+  let best = 0;
+  let bestVal = Infinity;
+  for (let d = 0; d <= Math.floor(k / 2); d++) {
+    const n = k - d;
+    const a = s1[d] ?? 0;
+    const ss = (s2[d] ?? 0) - (a * a) / n;
+    const val = Math.max(ss, 0) / (n * n);
+    if (val < bestVal - 1e-15 * Math.abs(bestVal)) {
+      bestVal = val;
+      best = d;
+    }
+  }
+  return { truncation: best * batch, batches: k };
+}
+
+/** Standard error of the mean by batch means with ⌊√n⌋ batches. */
+export function batchMeansSE(x: readonly number[]): number {
+  const n = x.length;
+  if (n < 4) return Math.sqrt(variance(x) / Math.max(n, 1));
+  const b = Math.floor(Math.sqrt(n));
+  const m = Math.floor(n / b);
+  const bm = batchMeans(x.slice(n - b * m), m);
+  return Math.sqrt(variance(bm) / bm.length);
+}
+
+/** z = (mean of first half − mean of second half)/√(SE₁² + SE₂²). */
+export function twoHalvesZ(x: readonly number[]): number {
+  const h = Math.floor(x.length / 2);
+  const a = x.slice(0, h);
+  const b = x.slice(x.length - h);
+  if (h < 2) return 0;
+  const d = mean(a) - mean(b);
+  const se = Math.hypot(batchMeansSE(a), batchMeansSE(b));
+  const scale = Math.max(Math.abs(mean(a)), Math.abs(mean(b)), 1e-300);
+  if (Math.abs(d) <= 1e-12 * scale) return 0;
+  return se === 0 ? Math.sign(d) * Infinity : d / se;
+}
+
+/** In-place radix-2 FFT (re, im of equal power-of-two length). */
+function fft(re: number[], im: number[]): void {
+  const n = re.length;
+  for (let i = 1, j = 0; i < n; i++) {
+    let bit = n >> 1;
+    for (; j & bit; bit >>= 1) j ^= bit;
+    j ^= bit;
+    if (i < j) {
+      [re[i], re[j]] = [re[j] ?? 0, re[i] ?? 0];
+      [im[i], im[j]] = [im[j] ?? 0, im[i] ?? 0];
+    }
+  }
+  for (let len = 2; len <= n; len <<= 1) {
+    const ang = (-2 * Math.PI) / len;
+    for (let i = 0; i < n; i += len) {
+      for (let k = 0; k < len / 2; k++) {
+        const wr = Math.cos(ang * k);
+        const wi = Math.sin(ang * k);
+        const a = i + k;
+        const b = a + len / 2;
+        const xr = (re[b] ?? 0) * wr - (im[b] ?? 0) * wi;
+        const xi = (re[b] ?? 0) * wi + (im[b] ?? 0) * wr;
+        re[b] = (re[a] ?? 0) - xr;
+        im[b] = (im[a] ?? 0) - xi;
+        re[a] = (re[a] ?? 0) + xr;
+        im[a] = (im[a] ?? 0) + xi;
+      }
+    }
+  }
+}
+
+/** Normalised autocorrelation ρ(0..n−1) via FFT (biased estimator, divided by n). */
+export function autocorrelation(x: readonly number[]): number[] {
+  const n = x.length;
+  const m = mean(x);
+  let size = 1;
+  while (size < 2 * n) size <<= 1;
+  const re = new Array<number>(size).fill(0);
+  const im = new Array<number>(size).fill(0);
+  for (let i = 0; i < n; i++) re[i] = (x[i] ?? 0) - m;
+  fft(re, im);
+  for (let i = 0; i < size; i++) {
+    re[i] = (re[i] ?? 0) ** 2 + (im[i] ?? 0) ** 2;
+    im[i] = 0;
+  }
+  fft(re, im); // power spectrum is real and even: a forward FFT equals the inverse up to 1/size
+  const c0 = re[0] ?? 0;
+  const out: number[] = [];
+  for (let t = 0; t < n; t++) out.push(c0 === 0 ? (t === 0 ? 1 : 0) : (re[t] ?? 0) / c0);
+  return out;
+}
+
+/** Integrated autocorrelation time with Sokal's window: smallest M with M ≥ c·τ(M). */
+export function integratedAutocorrelationTime(x: readonly number[], c = 5): number {
+  const n = x.length;
+  if (n < 4) return 1;
+  const rho = autocorrelation(x);
+  let tau = 1;
+  for (let m = 1; m < n; m++) {
+    tau += 2 * (rho[m] ?? 0);
+    if (m >= c * tau) return Math.max(tau, 1 / n);
+  }
+  return Math.max(tau, 1);
+}
+
+export function effectiveSampleSize(x: readonly number[]): number {
+  return x.length / Math.max(integratedAutocorrelationTime(x), 1e-12);
+}

@@ -1,0 +1,117 @@
+/** Shared types of the checker engine. */
+
+export type Severity = "mismatch" | "caution" | "note";
+
+export type Family = "A" | "B" | "C" | "D" | "E" | "F" | "G" | "H" | "I" | "J";
+
+/** One finding of the checker. */
+export interface Flag {
+  rule: string;
+  severity: Severity;
+  quantities: string[];
+  message: string;
+  expected?: number | string;
+  found?: number | string;
+  tolerance?: number | string;
+  source: string;
+  /** label of the run the flag belongs to (claim flags that concern one run) */
+  run?: string;
+  /** index into `claim.stated` when the flag comes from a stated value */
+  claimRow?: number;
+}
+
+/** Static description of a rule, for the help page and for the flags. */
+export interface RuleInfo {
+  id: string;
+  family: Family;
+  title: string;
+  /** one line shown to reviewers */
+  explanation: string;
+  severities: Severity[];
+  /** key of the policy object that sets the threshold, when there is one */
+  policyKey?: string;
+  /** human description of the threshold, with its default */
+  threshold?: string;
+  source: string;
+}
+
+export interface RunLength {
+  viscous?: number;
+  magnetic?: number;
+  thermal?: number;
+  rotations?: number;
+  overturns?: number;
+}
+
+export interface AveragingWindow {
+  magnetic?: number;
+  overturns?: number;
+}
+
+/** The contract's `derived` object: every key absent when it cannot be known. */
+export interface Derived {
+  E?: number;
+  Ra?: number;
+  RaRotating?: number;
+  RaBuoyancy?: number;
+  RaFlux?: number;
+  Pr?: number;
+  Pm?: number;
+  q?: number;
+  chi?: number;
+  Emag_ekman?: number;
+  Re?: number;
+  Rm?: number;
+  Ro?: number;
+  Rol?: number;
+  Lo?: number;
+  Lambda?: number;
+  NOverOmega?: number;
+  tangentCylinderLatitudeDeg?: number;
+  layerThicknessKm?: number;
+  layerTangentLatitudeDeg?: number;
+  runLength?: RunLength;
+  averagingWindow?: AveragingWindow;
+}
+
+export interface RunResult {
+  label: string;
+  derived: Derived;
+  flags: Flag[];
+}
+
+export interface CheckOutput {
+  runs: RunResult[];
+  claimFlags: Flag[];
+}
+
+/** Build a flag from a rule's static info. */
+export function flagOf(
+  info: RuleInfo,
+  severity: Severity,
+  quantities: string[],
+  message: string,
+  extra: Partial<Pick<Flag, "expected" | "found" | "tolerance" | "run" | "claimRow">> = {},
+): Flag {
+  return { rule: info.id, severity, quantities, message, ...extra, source: info.source };
+}
+
+/** Relative difference |found − expected| / |expected| (0 when both are 0). */
+export function relDiff(found: number, expected: number): number {
+  if (found === expected) return 0;
+  const d = Math.abs(expected);
+  return d === 0 ? Infinity : Math.abs(found - expected) / d;
+}
+
+/** Compact number formatting for messages. */
+export function fmt(x: number): string {
+  if (!Number.isFinite(x)) return String(x);
+  if (x === 0) return "0";
+  const a = Math.abs(x);
+  if (a >= 1e-3 && a < 1e5) return String(Number(x.toPrecision(4)));
+  return x.toExponential(3).replace(/\.?0+e/, "e");
+}
+
+export function isNum(x: unknown): x is number {
+  return typeof x === "number" && Number.isFinite(x);
+}

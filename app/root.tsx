@@ -1,0 +1,37 @@
+import { Links, Meta, Outlet, Scripts, ScrollRestoration } from "react-router";
+import type { Route } from "./+types/root";
+import { dbMiddleware } from "./middleware.server";
+import { ErrorView } from "./components/error-view";
+import "./app.css";
+
+export const middleware: Route.MiddlewareFunction[] = [dbMiddleware];
+
+export const meta: Route.MetaFunction = () => [{ title: "Runproof" }];
+
+export function Layout({ children }: { children: React.ReactNode }) {
+  return (
+    <html lang="en">
+      <head>
+        <meta charSet="utf-8" />
+        <meta name="viewport" content="width=device-width, initial-scale=1" />
+        <Meta />
+        <Links />
+      </head>
+      <body className="min-h-screen">
+        {children}
+        <ScrollRestoration />
+        <Scripts />
+      </body>
+    </html>
+  );
+}
+
+export default function App() {
+  return <Outlet />;
+}
+
+/** The one error boundary: every route that throws ends here (nested layouts keep their header). */
+export function ErrorBoundary({ error }: Route.ErrorBoundaryProps) {
+  return <ErrorView error={error} />;
+}
+

@@ -1,0 +1,30 @@
+#!/usr/bin/env bash
+# npm start: everything a fresh clone needs, then the app at http://127.0.0.1:3000.
+set -euo pipefail
+cd "$(dirname "$0")/.."
+source scripts/lib/common.sh
+
+bash scripts/install-packages.sh
+bash scripts/system-deps.sh postgres
+
+started_services=0
+if ! bash scripts/services.sh status >/dev/null 2>&1; then started_services=1; fi
+bash scripts/services.sh up
+stop_started() {
+  # Ctrl-C stops what this command started, and nothing that was running before it.
+  if [[ $started_services == 1 ]]; then bash scripts/services.sh down --quiet || true; fi
+}
+trap stop_started EXIT
+
+export DATABASE_URL="${DATABASE_URL:-$RUNPROOF_DATABASE_URL}"
+export APP_URL="${APP_URL:-http://127.0.0.1:${PORT:-3000}}"
+node_modules/.bin/tsx database/migrate.ts
+node_modules/.bin/tsx database/seed.ts
+node_modules/.bin/react-router build >/dev/null
+
+node_modules/.bin/tsx scripts/print-welcome.ts
+PORT="${PORT:-3000}" HOST=127.0.0.1 NODE_ENV=production node ./node_modules/@react-router/serve/bin.js build/server/index.js &
+server=$!
+trap 'kill $server 2>/dev/null || true; wait $server 2>/dev/null || true; stop_started' EXIT
+trap 'exit 130' INT TERM
+wait $server
