@@ -3,7 +3,10 @@ import { type RouteConfig, index, layout, prefix, route } from "@react-router/de
 export default [
   // Resource routes (no UI): auth endpoints, the public API, JSON Schemas, health.
   route("api/auth/*", "routes/api/auth.ts"),
-  ...prefix("api/v1", [route("check", "routes/api/v1/check.ts")]),
+  ...prefix("api/v1", [
+    route("check", "routes/api/v1/check.ts"),
+    // --- public API resource routes (tokens, OpenAPI)
+  ]),
   ...prefix("schemas", [
     route("run-1.json", "routes/schemas/run-1.ts"),
     route("claim-1.json", "routes/schemas/claim-1.ts"),
@@ -28,6 +31,8 @@ export default [
       ]),
     ]),
     ...prefix("help", [route("checks", "routes/help/checks.tsx")]),
+    // --- author workspace: venue › submission › round › runs / claims / files
+    // --- editorial desk, invitations, reviewer workspace, decisions
     route("*", "routes/not-found.tsx"),
   ]),
 ] satisfies RouteConfig;

@@ -16,6 +16,9 @@ export const user = pgTable("user", {
   banExpires: timestamp("ban_expires", { withTimezone: true }),
   affiliation: text("affiliation"),
   orcid: text("orcid"),
+  /** How often this person wants the digest mail: daily, weekly or never. */
+  digest: text("digest").notNull().default("weekly"),
+  digestSentAt: timestamp("digest_sent_at", { withTimezone: true }),
 });
 
 export const session = pgTable(

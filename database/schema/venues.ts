@@ -1,4 +1,4 @@
-import { pgEnum, pgTable, primaryKey, text, timestamp, uuid } from "drizzle-orm/pg-core";
+import { jsonb, pgEnum, pgTable, primaryKey, text, timestamp, uuid } from "drizzle-orm/pg-core";
 import { user } from "./auth";
 
 export const blindingEnum = pgEnum("blinding", ["single", "double"]);
@@ -11,6 +11,8 @@ export const venues = pgTable("venues", {
   name: text("name").notNull(),
   publisher: text("publisher"),
   blinding: blindingEnum("blinding").notNull().default("single"),
+  /** Overrides of the checker's default thresholds for this venue's rounds. */
+  checkerPolicy: jsonb("checker_policy").$type<Record<string, unknown>>().notNull().default({}),
   createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),
 });
 

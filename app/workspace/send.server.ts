@@ -1,0 +1,67 @@
+import { and, eq, isNull } from "drizzle-orm";
+import type { Database } from "~db/client";
+import { flags, rounds, submissions, user, venueMembers, venues } from "~db/schema";
+import { env } from "~/config/env.server";
+import { compose } from "~/mail/compose";
+import { enqueueMail } from "~/mail/outbox.server";
+import { audit } from "./audit.server";
+import { StateConflict } from "./types";
+
+/** Mismatch flags that still have neither a fix nor an answer block sending. */
+export async function unansweredMismatches(db: Database, roundId: string) {
+  return db
+    .select({ id: flags.id, rule: flags.rule, runLabel: flags.runLabel, message: flags.message })
+    .from(flags)
+    .where(and(eq(flags.roundId, roundId), eq(flags.severity, "mismatch"), isNull(flags.authorAnswer)));
+}
+
+/**
+ * Sends a draft round to the editor: checks the mismatches, freezes the round (its run
+ * versions are already pinned in round_runs; its state leaves draft), records it, and queues
+ * the editors' mail — all in one transaction, guarded by the round's version.
+ */
+export async function sendRound(db: Database, opts: { roundId: string; userId: string; expectedVersion: number }) {
+  const blocking = await unansweredMismatches(db, opts.roundId);
+  if (blocking.length) {
+    throw new StateConflict(
+      `${blocking.length} mismatch flag(s) are neither fixed nor answered; answer each one with an explanation or fix the run or claim first.`,
+    );
+  }
+  return db.transaction(async (tx) => {
+    const [round] = await tx
+      .update(rounds)
+      .set({ state: "sent", sentAt: new Date(), sentBy: opts.userId, version: opts.expectedVersion + 1 })
+      .where(and(eq(rounds.id, opts.roundId), eq(rounds.state, "draft"), eq(rounds.version, opts.expectedVersion)))
+      .returning();
+    if (!round) throw new StateConflict("This round was already sent or changed by someone else: reload the page.");
+    const [sub] = await tx
+      .update(submissions)
+      .set({ stage: "with-editor", updatedAt: new Date() })
+      .where(eq(submissions.id, round.submissionId))
+      .returning({ id: submissions.id, title: submissions.title, venueId: submissions.venueId });
+    await audit(tx, sub!.id, opts.userId, "round.sent", { round: round.number });
+    const editors = await tx
+      .select({ email: user.email, name: user.name, venueName: venues.name })
+      .from(venueMembers)
+      .innerJoin(user, eq(user.id, venueMembers.userId))
+      .innerJoin(venues, eq(venues.id, venueMembers.venueId))
+      .where(and(eq(venueMembers.venueId, sub!.venueId), eq(venueMembers.role, "editor")));
+    for (const editor of editors) {
+      await enqueueMail(
+        tx,
+        editor.email,
+        compose({
+          subject: `Round ${round.number} sent: ${sub!.title}`,
+          greeting: `Hello ${editor.name},`,
+          paragraphs: [
+            `The authors sent round ${round.number} of "${sub!.title}" to ${editor.venueName}.`,
+            "The checker's flags and the authors' answers to them are on the round's page.",
+          ],
+          action: { label: "Open the editor's desk", url: `${env.APP_URL}/venues/${sub!.venueId}/desk` },
+        }),
+        { dedupeKey: `round-sent:${round.id}:${editor.email}` },
+      );
+    }
+    return round;
+  });
+}

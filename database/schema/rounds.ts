@@ -1,0 +1,36 @@
+import { integer, jsonb, pgEnum, pgTable, text, timestamp, uniqueIndex, uuid } from "drizzle-orm/pg-core";
+import { user } from "./auth";
+import { submissions } from "./submissions";
+
+export const roundStateEnum = pgEnum("round_state", ["draft", "sent", "under-review", "reviews-in", "decided"]);
+export const decisionEnum = pgEnum("decision", ["accept", "minor-revision", "major-revision", "reject"]);
+
+/**
+ * Round N of a submission. A draft round is the authors' to change; sending freezes it
+ * (its run versions and claims) for the editor and reviewers. `version` guards concurrent
+ * state changes (optimistic concurrency: update … where version = seen).
+ */
+export const rounds = pgTable(
+  "rounds",
+  {
+    id: uuid("id").primaryKey().defaultRandom(),
+    submissionId: uuid("submission_id")
+      .notNull()
+      .references(() => submissions.id, { onDelete: "cascade" }),
+    number: integer("number").notNull(),
+    state: roundStateEnum("state").notNull().default("draft"),
+    version: integer("version").notNull().default(1),
+    sentAt: timestamp("sent_at", { withTimezone: true }),
+    sentBy: text("sent_by").references(() => user.id, { onDelete: "set null" }),
+    decision: decisionEnum("decision"),
+    /** The editor's decision letter as Tiptap JSON. */
+    letter: jsonb("letter"),
+    decidedAt: timestamp("decided_at", { withTimezone: true }),
+    decidedBy: text("decided_by").references(() => user.id, { onDelete: "set null" }),
+    releasedAt: timestamp("released_at", { withTimezone: true }),
+    /** When the flags were last recomputed, and a digest of the inputs they came from. */
+    checkedAt: timestamp("checked_at", { withTimezone: true }),
+    createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),
+  },
+  (t) => [uniqueIndex("rounds_submission_number_uq").on(t.submissionId, t.number)],
+);
