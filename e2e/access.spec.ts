@@ -1,4 +1,5 @@
 import { expect, test } from "@playwright/test";
+import { ORIGIN } from "./support/origin";
 import { login } from "./support/session";
 
 test("a co-author cannot open the instance pages", async ({ page }) => {
@@ -11,7 +12,7 @@ test("a co-author cannot open the instance pages", async ({ page }) => {
   // The action refuses too, not only the page.
   const post = await page.request.post("/admin/users", {
     form: { intent: "set-role", userId: "x", role: "admin" },
-    headers: { origin: "http://127.0.0.1:3100" },
+    headers: { origin: ORIGIN },
   });
   expect(post.status()).toBe(403);
 });

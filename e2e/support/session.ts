@@ -1,4 +1,5 @@
 import { expect, type Page } from "@playwright/test";
+import { ORIGIN } from "./origin";
 import { DEMO_PASSWORD, demoPeople, type DemoKey } from "../../database/demo-data";
 
 export function demo(key: DemoKey) {
@@ -14,7 +15,7 @@ export async function login(page: Page, key: DemoKey) {
   const person = demo(key);
   const res = await page.request.post("/api/auth/sign-in/email", {
     data: { email: person.email, password: DEMO_PASSWORD },
-    headers: { origin: process.env.E2E_ORIGIN ?? "http://127.0.0.1:3100" },
+    headers: { origin: ORIGIN },
   });
   expect(res.status(), await res.text()).toBe(200);
   return person;

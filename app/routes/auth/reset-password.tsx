@@ -65,13 +65,14 @@ export default function ResetPassword({ loaderData, actionData }: Route.Componen
     <main className="mx-auto max-w-md p-gutter">
       <h1 className="text-title">Choose a new password</h1>
       <Form method="post" {...getFormProps(form)} className="mt-6 flex flex-col gap-4">
-        <FormErrors errors={form.errors} id={form.errorId} />
         <input type="hidden" name="token" value={loaderData.token} />
         <TextField meta={fields.password} label="New password" type="password" autoComplete="new-password" hint="At least 10 characters." />
         <TextField meta={fields.confirm} label="Repeat the new password" type="password" autoComplete="new-password" />
         <button type="submit" className="btn self-start">
           Save the new password
         </button>
+        {/* Below the button: when the message clears on blur, the button must not move under the pointer. */}
+        <FormErrors errors={form.errors} id={form.errorId} />
       </Form>
     </main>
   );

@@ -64,13 +64,14 @@ export default function SignIn({ actionData }: Route.ComponentProps) {
         </p>
       ) : null}
       <Form method="post" {...getFormProps(form)} className="mt-6 flex flex-col gap-4">
-        <FormErrors errors={form.errors} id={form.errorId} />
         <input type="hidden" name="next" value={params.get("next") ?? ""} />
         <TextField meta={fields.email} label="E-mail" type="email" autoComplete="email" />
         <TextField meta={fields.password} label="Password" type="password" autoComplete="current-password" />
         <button type="submit" className="btn self-start">
           Sign in
         </button>
+        {/* Below the button: when the message clears on blur, the button must not move under the pointer. */}
+        <FormErrors errors={form.errors} id={form.errorId} />
       </Form>
       <p className="mt-6 text-caption">
         <Link to="/forgot-password">Forgot your password?</Link> · <Link to="/sign-up">Create an account</Link>

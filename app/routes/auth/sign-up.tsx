@@ -48,7 +48,6 @@ export default function SignUp({ actionData }: Route.ComponentProps) {
         One account serves every role: editors and authors add you to venues and submissions.
       </p>
       <Form method="post" {...getFormProps(form)} className="mt-6 flex flex-col gap-4">
-        <FormErrors errors={form.errors} id={form.errorId} />
         <TextField meta={fields.name} label="Name" autoComplete="name" />
         <TextField meta={fields.email} label="E-mail" type="email" autoComplete="email" />
         <TextField meta={fields.password} label="Password" type="password" autoComplete="new-password" hint="At least 10 characters." />
@@ -56,6 +55,8 @@ export default function SignUp({ actionData }: Route.ComponentProps) {
         <button type="submit" className="btn self-start">
           Create the account
         </button>
+        {/* Below the button: when the message clears on blur, the button must not move under the pointer. */}
+        <FormErrors errors={form.errors} id={form.errorId} />
       </Form>
       <p className="mt-6 text-caption">
         Already registered? <Link to="/sign-in">Sign in</Link>

@@ -1,21 +1,91 @@
-import { rules } from "~/checker/registry";
+import { FAMILIES, rules } from "~/checker/registry";
+import { AdvisoryNote } from "~/components/advisory-note";
 import type { Route } from "./+types/checks";
 
 export const meta: Route.MetaFunction = () => [{ title: "Checks reference · Runproof" }];
 
+/** Generated from the rule registry, so this page and the checker never disagree. */
 export function loader() {
-  return { rules };
+  return {
+    families: Object.entries(FAMILIES).map(([family, title]) => ({
+      family,
+      title,
+      rules: rules
+        .filter((r) => r.family === family)
+        .map((r) => ({
+          id: r.id,
+          title: r.title,
+          explanation: r.explanation,
+          severities: r.severities,
+          threshold: r.threshold ?? null,
+          policyKey: r.policyKey ?? null,
+          defaultThreshold: r.defaultThreshold === undefined ? null : JSON.stringify(r.defaultThreshold),
+          source: r.source,
+        })),
+    })),
+  };
 }
+
+const severityClass: Record<string, string> = {
+  mismatch: "bg-ember-wash text-ember",
+  caution: "bg-amber-wash text-amber",
+  note: "bg-fjord-wash text-fjord",
+};
 
 export default function ChecksReference({ loaderData }: Route.ComponentProps) {
   return (
     <main className="mx-auto max-w-6xl p-gutter">
       <h1 className="text-title">What the checker looks at</h1>
-      <p className="mt-3 max-w-3xl rounded border border-amber bg-amber-wash p-3" role="note">
-        Flags are advisory. They are computed from what the authors entered, under the conventions they declared;
-        the reviewer's judgement decides.
+      <p className="mt-3 max-w-3xl text-basalt-soft">
+        Every rule of the checker, its identifier as it appears on flags, what it compares, its default threshold (a
+        venue may set its own) and where the method comes from. The same engine runs in the app, behind{" "}
+        <code className="font-mono">POST /api/v1/check</code> and in <code className="font-mono">npm run check</code>.
       </p>
-      <pre>{JSON.stringify(loaderData.rules.length)}</pre>
+      <AdvisoryNote className="mt-4 max-w-3xl" />
+      {loaderData.families.map((f) => (
+        <section key={f.family} className="mt-8" aria-labelledby={`family-${f.family}`}>
+          <h2 id={`family-${f.family}`} className="text-lead">
+            {f.family}. {f.title}
+          </h2>
+          <table className="mt-3 w-full text-left text-caption" data-testid={`rules-${f.family}`}>
+            <thead>
+              <tr className="border-b border-rule">
+                <th className="py-1 pr-3">Rule</th>
+                <th className="pr-3">What it checks</th>
+                <th className="pr-3">Severity</th>
+                <th className="pr-3">Default threshold</th>
+                <th>Source</th>
+              </tr>
+            </thead>
+            <tbody>
+              {f.rules.map((r) => (
+                <tr key={r.id} id={r.id} className="border-b border-rule align-top">
+                  <td className="py-2 pr-3 font-mono whitespace-nowrap">{r.id}</td>
+                  <td className="pr-3">
+                    <span className="font-semibold">{r.title}.</span> {r.explanation}
+                  </td>
+                  <td className="pr-3">
+                    {r.severities.map((s) => (
+                      <span key={s} className={`mr-1 rounded px-1.5 py-0.5 font-mono ${severityClass[s]}`}>
+                        {s}
+                      </span>
+                    ))}
+                  </td>
+                  <td className="pr-3">
+                    {r.threshold ?? "—"}
+                    {r.policyKey ? (
+                      <div className="font-mono text-basalt-soft">
+                        {r.policyKey} = {r.defaultThreshold}
+                      </div>
+                    ) : null}
+                  </td>
+                  <td>{r.source}</td>
+                </tr>
+              ))}
+            </tbody>
+          </table>
+        </section>
+      ))}
     </main>
   );
 }
