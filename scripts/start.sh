@@ -3,6 +3,8 @@
 set -euo pipefail
 cd "$(dirname "$0")/.."
 source scripts/lib/common.sh
+# A local .env (optional; see .env.example) overrides the defaults.
+if [[ -f .env ]]; then set -a; source .env; set +a; fi
 
 bash scripts/install-packages.sh
 bash scripts/system-deps.sh postgres
