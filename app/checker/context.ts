@@ -2,7 +2,7 @@
 import { derive, givenValues, type Given } from "./derive.ts";
 import { materialToSI, recompute, type MaterialSI, type Recomputed } from "./material.ts";
 import type { Policy } from "./policy.ts";
-import type { Columns, RunRecord } from "./schema.ts";
+import type { ClaimRecord, Columns, RunRecord } from "./schema.ts";
 import { analyseSeries, type SeriesStats } from "./series.ts";
 import type { Derived } from "./types.ts";
 
@@ -53,7 +53,7 @@ export function buildRunContext(
 }
 
 export interface ClaimContext {
-  claim: NonNullable<import("./schema.ts").ClaimRecord>;
+  claim: ClaimRecord;
   runs: Map<string, RunContext>;
   policy: Policy;
 }

@@ -93,7 +93,19 @@ export function derive(run: RunRecord, rec: Recomputed, given: Given, series: Se
     if (w.overturns !== undefined) aw.overturns = w.overturns;
     if (Object.keys(aw).length > 0) d.averagingWindow = aw;
   }
-  return d;
+  return ordered(d);
+}
+
+const ORDER: Array<keyof Derived> = [
+  "E", "Ra", "RaRotating", "RaBuoyancy", "RaFlux", "Pr", "Pm", "q", "chi", "Emag_ekman", "Re", "Rm", "Ro", "Rol", "Lo",
+  "Lambda", "NOverOmega", "tangentCylinderLatitudeDeg", "layerThicknessKm", "layerTangentLatitudeDeg", "runLength", "averagingWindow",
+];
+
+/** Same keys in the contract's order. */
+function ordered(d: Derived): Derived {
+  const out: Record<string, unknown> = {};
+  for (const k of ORDER) if (d[k] !== undefined) out[k] = d[k];
+  return out as Derived;
 }
 
 function clean<T extends object>(o: T): T {

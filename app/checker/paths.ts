@@ -45,9 +45,13 @@ export function zodErrors(error: z.core.$ZodError, input: unknown, prefix: Reado
       case "invalid_value":
         out.push({ path, message: `${path} must be one of ${issue.values.map((v) => JSON.stringify(v)).join(", ")}, found ${describeValue(found)}` });
         break;
-      case "invalid_union":
-        out.push({ path, message: `${path} has an invalid value ${describeValue(found)}` });
+      case "invalid_union": {
+        const options = issue.errors.flat().flatMap((e) => (e.code === "invalid_value" ? e.values : []));
+        const types = issue.errors.flat().flatMap((e) => (e.code === "invalid_type" ? [e.expected] : []));
+        const want = options.length > 0 ? `one of ${options.map((v) => JSON.stringify(v)).join(", ")}` : types.length > 0 ? `a ${types.join(" or a ")}` : "valid";
+        out.push({ path, message: `${path} must be ${want}, found ${describeValue(found)}` });
         break;
+      }
       default:
         out.push({ path, message: `${path}: ${issue.message} (found ${describeValue(found)})` });
     }

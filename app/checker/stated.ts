@@ -131,7 +131,12 @@ export function overlaps(iv: Interval, a: number, b: number): boolean {
   return contains(iv, a) || contains(iv, b) || (a <= iv.lo && b >= iv.hi);
 }
 
-const g = (x: number) => (Number.isFinite(x) ? String(Number(x.toPrecision(6))) : String(x));
+function g(x: number): string {
+  if (!Number.isFinite(x)) return String(x);
+  const a = Math.abs(x);
+  if (a !== 0 && (a < 1e-3 || a >= 1e6)) return Number(x.toPrecision(6)).toExponential().replace(/e\+/, "e");
+  return String(Number(x.toPrecision(6)));
+}
 
 /** Human description, e.g. `"3.0e-5" = [2.95e-5, 3.05e-5)`. */
 export function describe(iv: Interval): string {

@@ -52,7 +52,7 @@ export function mser(x: readonly number[], batch = 5): { truncation: number; bat
     const a = s1[d] ?? 0;
     const ss = (s2[d] ?? 0) - (a * a) / n;
     const val = Math.max(ss, 0) / (n * n);
-    if (val < bestVal - 1e-15 * Math.abs(bestVal)) {
+    if (bestVal === Infinity || val < bestVal * (1 - 1e-12)) {
       bestVal = val;
       best = d;
     }
@@ -83,32 +83,44 @@ export function twoHalvesZ(x: readonly number[]): number {
   return se === 0 ? Math.sign(d) * Infinity : d / se;
 }
 
-/** In-place radix-2 FFT (re, im of equal power-of-two length). */
-function fft(re: number[], im: number[]): void {
+/** In-place radix-2 FFT of (re, im), length a power of two. */
+function fft(re: Float64Array, im: Float64Array): void {
   const n = re.length;
   for (let i = 1, j = 0; i < n; i++) {
     let bit = n >> 1;
     for (; j & bit; bit >>= 1) j ^= bit;
     j ^= bit;
     if (i < j) {
-      [re[i], re[j]] = [re[j] ?? 0, re[i] ?? 0];
-      [im[i], im[j]] = [im[j] ?? 0, im[i] ?? 0];
+      const tr = re[i] as number;
+      re[i] = re[j] as number;
+      re[j] = tr;
+      const ti = im[i] as number;
+      im[i] = im[j] as number;
+      im[j] = ti;
     }
   }
   for (let len = 2; len <= n; len <<= 1) {
+    const half = len >> 1;
     const ang = (-2 * Math.PI) / len;
+    const wStepR = Math.cos(ang);
+    const wStepI = Math.sin(ang);
     for (let i = 0; i < n; i += len) {
-      for (let k = 0; k < len / 2; k++) {
-        const wr = Math.cos(ang * k);
-        const wi = Math.sin(ang * k);
+      let wr = 1;
+      let wi = 0;
+      for (let k = 0; k < half; k++) {
         const a = i + k;
-        const b = a + len / 2;
-        const xr = (re[b] ?? 0) * wr - (im[b] ?? 0) * wi;
-        const xi = (re[b] ?? 0) * wi + (im[b] ?? 0) * wr;
-        re[b] = (re[a] ?? 0) - xr;
-        im[b] = (im[a] ?? 0) - xi;
-        re[a] = (re[a] ?? 0) + xr;
-        im[a] = (im[a] ?? 0) + xi;
+        const b = a + half;
+        const br = re[b] as number;
+        const bi = im[b] as number;
+        const xr = br * wr - bi * wi;
+        const xi = br * wi + bi * wr;
+        re[b] = (re[a] as number) - xr;
+        im[b] = (im[a] as number) - xi;
+        re[a] = (re[a] as number) + xr;
+        im[a] = (im[a] as number) + xi;
+        const nwr = wr * wStepR - wi * wStepI;
+        wi = wr * wStepI + wi * wStepR;
+        wr = nwr;
       }
     }
   }
@@ -120,34 +132,41 @@ export function autocorrelation(x: readonly number[]): number[] {
   const m = mean(x);
   let size = 1;
   while (size < 2 * n) size <<= 1;
-  const re = new Array<number>(size).fill(0);
-  const im = new Array<number>(size).fill(0);
-  for (let i = 0; i < n; i++) re[i] = (x[i] ?? 0) - m;
+  const re = new Float64Array(size);
+  const im = new Float64Array(size);
+  for (let i = 0; i < n; i++) re[i] = (x[i] as number) - m;
   fft(re, im);
   for (let i = 0; i < size; i++) {
-    re[i] = (re[i] ?? 0) ** 2 + (im[i] ?? 0) ** 2;
+    re[i] = (re[i] as number) ** 2 + (im[i] as number) ** 2;
     im[i] = 0;
   }
-  fft(re, im); // power spectrum is real and even: a forward FFT equals the inverse up to 1/size
-  const c0 = re[0] ?? 0;
-  const out: number[] = [];
-  for (let t = 0; t < n; t++) out.push(c0 === 0 ? (t === 0 ? 1 : 0) : (re[t] ?? 0) / c0);
+  fft(re, im); // the power spectrum is real and even: a forward FFT equals the inverse up to 1/size
+  const c0 = re[0] as number;
+  const out: number[] = new Array<number>(n);
+  for (let t = 0; t < n; t++) out[t] = c0 === 0 ? (t === 0 ? 1 : 0) : (re[t] as number) / c0;
   return out;
 }
 
-/** Integrated autocorrelation time with Sokal's window: smallest M with M ≥ c·τ(M). */
+/**
+ * Integrated autocorrelation time with Sokal's window: smallest M with M ≥ c·τ(M).
+ * When no such M exists (series shorter than a few τ) the largest τ(M) is returned.
+ */
 export function integratedAutocorrelationTime(x: readonly number[], c = 5): number {
   const n = x.length;
   if (n < 4) return 1;
   const rho = autocorrelation(x);
   let tau = 1;
+  let largest = 1;
   for (let m = 1; m < n; m++) {
     tau += 2 * (rho[m] ?? 0);
+    largest = Math.max(largest, tau);
     if (m >= c * tau) return Math.max(tau, 1 / n);
   }
-  return Math.max(tau, 1);
+  // the window never closed: the series is too short for its correlation; be conservative
+  return largest;
 }
 
+/** n/τ_int, with τ_int floored at 1 so that anti-correlation never claims more than n samples. */
 export function effectiveSampleSize(x: readonly number[]): number {
-  return x.length / Math.max(integratedAutocorrelationTime(x), 1e-12);
+  return x.length / Math.max(integratedAutocorrelationTime(x), 1);
 }

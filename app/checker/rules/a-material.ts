@@ -12,8 +12,8 @@ const info = (id: string, title: string, explanation: string, source = SRC_DEF):
 
 export const RULES_A = {
   E: info("A.ekman-from-material", "Ekman number from ν, Ω and r_o", "E must equal ν/(f·Ω·L²) with the declared rotation factor f and length scale L."),
-  Pr: info("A.pr-from-diffusivities", "Prandtl number from ν and κ", "Pr must equal ν/κ."),
-  Pm: info("A.pm-from-diffusivities", "Magnetic Prandtl number from ν and η", "Pm must equal ν/η."),
+  Pr: info("A.pr-from-diffusivities", "Prandtl number from ν and κ", "The configured Prandtl number must equal ν/κ from the material properties."),
+  Pm: info("A.pm-from-diffusivities", "Magnetic Prandtl number from ν and η", "The configured magnetic Prandtl number must equal ν/η from the material properties."),
   Ra: info("A.ra-from-material", "Rayleigh number from α, g0, ΔT, ν, κ and r_o", "The configured Rayleigh number, converted from its declared flavour, must equal α·g0·ΔT·L³/(ν·κ)."),
   RaFlux: info(
     "A.raflux-from-material", "Flux Rayleigh number from g0, F, ρ, Ω and r_o",
@@ -58,7 +58,7 @@ export function checkMaterial(ctx: RunContext): Flag[] {
     if (relDiff(configured, from) <= tolerance) return;
     const hint = key === "E" || key === "Ra" ? conventionHint(key, configured, from, ctx) : "";
     out.push(flagOf(RULES_A[key], "mismatch", [`controls.${key === "RaFlux" ? "Ra" : key}`, m],
-      `${ctx.label}: configured ${key} = ${fmt(configured)} but ${how} gives ${fmt(from)} (${fmt(100 * relDiff(configured, from))} % off).${hint}`,
+      `${ctx.label}: configured ${key === "Ra" && run.conventions.rayleigh !== "classical" ? `Ra (${run.conventions.rayleigh} ${fmt(c.Ra)}, as classical)` : key} = ${fmt(configured)} but ${how} gives ${fmt(from)} (${fmt(100 * relDiff(configured, from))} % off).${hint}`,
       { expected: from, found: configured, tolerance, run: ctx.label }));
   };
   compare("E", c.E, rec.E, `ν/(${run.conventions.rotationFactor}·Ω·L²) from ${m}`);

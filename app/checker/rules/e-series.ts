@@ -47,15 +47,18 @@ export function checkSeries(ctx: RunContext): Flag[] {
   const out: Flag[] = [];
   const p = ctx.policy;
   const label = ctx.label;
+  const cut = Object.values(s.columns).filter((c) => c.truncationIndex > 0 && !c.truncationAtLimit);
+  if (cut.length > 0) {
+    const parts = cut.map((c) => `${c.column} at t = ${fmt(c.truncationTime)} (${c.truncationIndex} rows)`);
+    out.push(flagOf(RULES_E.transient, "note", cut.map((c) => `series.${c.column}`),
+      `${label}: MSER-5 puts the end of the initial transient of ${parts.join(", ")}; statistics use the rows after it.`,
+      { found: Math.max(...cut.map((c) => c.truncationTime)), run: label }));
+  }
   for (const c of Object.values(s.columns)) {
     const q = [`series.${c.column}`];
     if (c.truncationAtLimit) {
       out.push(flagOf(RULES_E.transientLong, "caution", q,
         `${label}: MSER-5 puts the end of the transient of ${c.column} at t = ${fmt(c.truncationTime)}, its search limit (half the series); the series may still be drifting.`,
-        { found: c.truncationTime, run: label }));
-    } else if (c.truncationIndex > 0) {
-      out.push(flagOf(RULES_E.transient, "note", q,
-        `${label}: MSER-5 puts the end of the transient of ${c.column} at t = ${fmt(c.truncationTime)} (${c.truncationIndex} rows discarded).`,
         { found: c.truncationTime, run: label }));
     }
     if (Math.abs(c.z) > p.zScore) {

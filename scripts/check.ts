@@ -1,0 +1,126 @@
+/**
+ * Command-line checker: same output as POST /api/v1/check.
+ *   npm run --silent check -- [--claim c.json] [--policy p.json] [--series LABEL=f.csv]
+ *                             [--spectrum LABEL=f.csv] run.json [run2.json …]
+ * Exit 0 when the input was valid (whatever it flags), 2 with a message on stderr when not.
+ */
+import { createReadStream } from "node:fs";
+import { readFile } from "node:fs/promises";
+import { parseArgs } from "node:util";
+import { CsvFormatError, type CsvKind } from "../app/checker/csv.ts";
+import { parseCsvStream } from "../app/checker/csv-stream.ts";
+import type { Columns } from "../app/checker/schema.ts";
+
+const USAGE = `usage: npm run --silent check -- [options] run.json [run2.json ...]
+
+Checks run records (runproof.run/1), optionally against a claim (runproof.claim/1),
+and prints { "runs": [ { "label", "derived", "flags" } ], "claimFlags": [ ... ] } as JSON.
+
+options:
+  --claim FILE            a claim record (JSON)
+  --policy FILE           policy overrides (JSON), e.g. { "minMagneticTimes": 2 }
+  --series LABEL=FILE     time-series CSV for the run LABEL (first column t); repeatable
+  --spectrum LABEL=FILE   spectrum CSV for the run LABEL (first column l); repeatable
+  -h, --help              show this help
+
+exit status: 0 valid input (flags or not), 2 invalid input (message on stderr)`;
+
+class UsageError extends Error {}
+
+async function readJson(file: string): Promise<unknown> {
+  let text: string;
+  try {
+    text = await readFile(file, "utf8");
+  } catch (e) {
+    throw new UsageError(`${file}: cannot read the file (${(e as NodeJS.ErrnoException).code ?? (e as Error).message})`);
+  }
+  try {
+    return JSON.parse(text);
+  } catch (e) {
+    throw new UsageError(`${file}: not valid JSON (${(e as Error).message})`);
+  }
+}
+
+async function readCsv(spec: string, kind: CsvKind, option: string): Promise<[string, Columns]> {
+  const eq = spec.indexOf("=");
+  if (eq <= 0 || eq === spec.length - 1) throw new UsageError(`--${option} expects LABEL=FILE, got "${spec}"`);
+  const label = spec.slice(0, eq);
+  const file = spec.slice(eq + 1);
+  try {
+    return [label, await parseCsvStream(createReadStream(file), kind)];
+  } catch (e) {
+    if (e instanceof CsvFormatError) throw new UsageError(`${file}: ${e.message}`);
+    const err = e as NodeJS.ErrnoException;
+    throw new UsageError(`${file}: cannot read the file (${err.code ?? err.message})`);
+  }
+}
+
+async function collect(specs: string[], kind: CsvKind, option: string): Promise<Record<string, Columns> | undefined> {
+  if (specs.length === 0) return undefined;
+  const out: Record<string, Columns> = {};
+  for (const s of specs) {
+    const [label, cols] = await readCsv(s, kind, option);
+    if (out[label]) throw new UsageError(`--${option}: run "${label}" is given twice`);
+    out[label] = cols;
+  }
+  return out;
+}
+
+async function main(argv: string[]): Promise<number> {
+  let parsed;
+  try {
+    parsed = parseArgs({
+      args: argv,
+      allowPositionals: true,
+      options: {
+        claim: { type: "string" },
+        policy: { type: "string" },
+        series: { type: "string", multiple: true },
+        spectrum: { type: "string", multiple: true },
+        help: { type: "boolean", short: "h" },
+      },
+    });
+  } catch (e) {
+    throw new UsageError(`${(e as Error).message}\n\n${USAGE}`);
+  }
+  const { values, positionals } = parsed;
+  if (values.help) {
+    process.stdout.write(USAGE + "\n");
+    return 0;
+  }
+  if (positionals.length === 0) throw new UsageError(`no run record given\n\n${USAGE}`);
+  const runs = [];
+  for (const f of positionals) runs.push(await readJson(f));
+  const input: Record<string, unknown> = { runs };
+  if (values.claim) input.claim = await readJson(values.claim);
+  if (values.policy) input.policy = await readJson(values.policy);
+  const series = await collect(values.series ?? [], "series", "series");
+  const spectra = await collect(values.spectrum ?? [], "spectrum", "spectrum");
+  if (series) input.series = series;
+  if (spectra) input.spectra = spectra;
+  // the engine (with mathjs) loads only once the files were read, so usage errors stay fast
+  const { check, CheckInputError } = await import("../app/checker/index.ts");
+  try {
+    process.stdout.write(JSON.stringify(check(input), null, 2) + "\n");
+  } catch (e) {
+    if (!(e instanceof CheckInputError)) throw e;
+    const files = (p: string) => {
+      const m = /^runs\[(\d+)\]/.exec(p);
+      return m ? ` (${positionals[Number(m[1])]})` : p.startsWith("claim") ? ` (${values.claim})` : p.startsWith("policy") ? ` (${values.policy})` : "";
+    };
+    throw new UsageError(e.errors.map((x) => `${x.path}${files(x.path)}: ${x.message}`).join("\n"));
+  }
+  return 0;
+}
+
+main(process.argv.slice(2)).then(
+  (code) => process.exit(code),
+  (e: unknown) => {
+    if (e instanceof UsageError) {
+      process.stderr.write(`check: ${e.message}\n`);
+      process.exit(2);
+    }
+    process.stderr.write(`check: internal error: ${(e as Error).stack ?? String(e)}\n`);
+    process.exit(1);
+  },
+);

@@ -1,0 +1,59 @@
+import { spawnSync } from "node:child_process";
+import { mkdtempSync, writeFileSync } from "node:fs";
+import { tmpdir } from "node:os";
+import { join } from "node:path";
+import { describe, expect, it } from "vitest";
+
+const tsx = "node_modules/.bin/tsx";
+const run = (...args: string[]) => spawnSync(tsx, ["scripts/check.ts", ...args], { encoding: "utf8", timeout: 60_000 });
+
+describe("command-line checker", () => {
+  it("checks the example study: exit 0, one JSON object with the demo's deliberate problems", () => {
+    const r = run(
+      "--claim", "examples/claims/layer-zonal-flow.json",
+      "--series", "ref-A=examples/series/ref-A.csv", "--series", "strat-B=examples/series/strat-B.csv",
+      "--spectrum", "ref-A=examples/series/ref-A-spectrum.csv", "--spectrum", "strat-B=examples/series/strat-B-spectrum.csv",
+      "examples/runs/ref-A.json", "examples/runs/strat-B.json",
+    );
+    expect(r.status, r.stderr).toBe(0);
+    const out = JSON.parse(r.stdout);
+    expect(out.runs.map((x: { label: string }) => x.label)).toEqual(["ref-A", "strat-B"]);
+    const rules = [...out.runs.flatMap((x: { flags: Array<{ rule: string }> }) => x.flags), ...out.claimFlags].map((f: { rule: string }) => f.rule);
+    for (const id of ["A.pm-from-diffusivities", "D.min-magnetic-times", "F.spectrum-decay", "G.undeclared-difference"]) expect(rules).toContain(id);
+    expect(out.runs[1].derived.layerThicknessKm).toBeCloseTo(200, 0);
+  });
+  it("prints usage for --help", () => {
+    const r = run("--help");
+    expect(r.status).toBe(0);
+    expect(r.stdout).toMatch(/usage: npm run --silent check/);
+  });
+  it("exits 2 for a missing file", () => {
+    const r = run("no/such/run.json");
+    expect(r.status).toBe(2);
+    expect(r.stderr).toContain("no/such/run.json: cannot read the file (ENOENT)");
+  });
+  it("exits 2 for bad JSON, naming the file", () => {
+    const dir = mkdtempSync(join(tmpdir(), "rp-"));
+    const f = join(dir, "bad.json");
+    writeFileSync(f, "{ not json");
+    const r = run(f);
+    expect(r.status).toBe(2);
+    expect(r.stderr).toContain(`${f}: not valid JSON`);
+  });
+  it("exits 2 for a schema error, with the JSON path", () => {
+    const dir = mkdtempSync(join(tmpdir(), "rp-"));
+    const f = join(dir, "run.json");
+    writeFileSync(f, JSON.stringify({ format: "runproof.run/1", label: "x", geometry: { radiusRatio: 0.35 }, conventions: { lengthScale: "gap", timeScale: "viscous", rotationFactor: 1, rayleigh: "classical" }, controls: { E: 1e-3, Ra: 1e5, Pr: 1, Ekman: 2 } }));
+    const r = run(f);
+    expect(r.status).toBe(2);
+    expect(r.stderr).toContain("runs[0].controls.Ekman");
+  });
+  it("exits 2 for a CSV error with its line number", () => {
+    const dir = mkdtempSync(join(tmpdir(), "rp-"));
+    const f = join(dir, "s.csv");
+    writeFileSync(f, "t,Re\n0,1\n1,oops\n");
+    const r = run("--series", `ref-A=${f}`, "examples/runs/ref-A.json");
+    expect(r.status).toBe(2);
+    expect(r.stderr).toContain("line 3: column Re is not a number ('oops')");
+  });
+});
