@@ -22,7 +22,8 @@ export async function action({ request }: Route.ActionArgs) {
     return data({ result: submission.reply({ hideFields: ["password"] }) }, { status: 400 });
   }
   const res = await auth.api.signInEmail({
-    body: { email: submission.value.email, password: submission.value.password },
+    // The callback is where a fresh confirmation link (sent when an unconfirmed person signs in) lands.
+    body: { email: submission.value.email, password: submission.value.password, callbackURL: safeNext(submission.value.next) },
     headers: request.headers,
     asResponse: true,
   });
