@@ -5,7 +5,7 @@
  * rotation factor f (E = ν/(f·Ω·L²)) and its Rayleigh flavour. With Ω' = f·Ω:
  *   classical  Ra   = α g ΔT L³/(ν κ)
  *   rotating   Ra·E/Pr      (2001 community dynamo benchmark, PEPI 128)
- *   buoyancy   Ra·E²/Pr     (Ra* of Christensen & Aubert 2006, GJI 166)
+ *   buoyancy   Ra·E²/Pr     (Ra* of the 2006 scaling study, Geophys. J. Int. 166, 97–114)
  *   flux       g F/(4π ρ Ω'³ L⁴), F the advected buoyancy flux.
  * For the flux flavour with fixed-temperature boundaries F = α(Nu−1)Q_cond/c_p and
  * Q_cond = 4π k r_i r_o ΔT/D, which gives Ra_F = Ra·E³·(Nu−1)/Pr² · r_i r_o/(L·D);

@@ -60,7 +60,7 @@ const pair = (b: unknown, varies = ["stableLayer"], a: unknown = baseRun()) => (
   claim: claim([], [{ label: "ref-A", part: "reference" }, { label: "strat-B", part: "varied" }], varies),
 });
 
-// Ra* = Ra E²/Pr = 0.1, Nu = 5: Ra_Q* = Ra*(Nu−1)E/Pr = 4e-5, Ro fit 0.85·Ra_Q*^0.41 (Christensen & Aubert 2006)
+// Ra* = Ra E²/Pr = 0.1, Nu = 5: Ra_Q* = Ra*(Nu−1)E/Pr = 4e-5, Ro fit 0.85·Ra_Q*^0.41 (scaling study, Geophys. J. Int. 166, 97–114)
 const RO_FIT = 0.85 * Math.pow(4e-5, 0.41);
 const regime = (Ro: number) => baseRun({ controls: { E: 1e-4, Ra: 1e7 }, diagnostics: { Nu: 5, Ro } });
 
@@ -79,7 +79,7 @@ export const CASES: RuleCase[] = [
   { rule: "A.pm-from-diffusivities", source: "Pm = ν/η", pass: one(baseRun({ material: { nu: "1e-6 m^2/s", eta: "2e-7 m^2/s" } })), fail: one(baseRun({ material: { nu: "1e-6 m^2/s", eta: "8e-7 m^2/s" } })) },
   { rule: "A.ra-from-material", source: "Ra = αg0ΔT D³/(νκ)", pass: one(baseRun({ controls: { E: E_EARTH, Ra: RA_MAT, Pr: 0.1 }, material: raMaterial })), fail: one(baseRun({ controls: { E: E_EARTH, Ra: 1.1 * RA_MAT, Pr: 0.1 }, material: raMaterial })) },
   { rule: "A.raflux-from-material", source: "Ra_F = g0F/(4πρΩ³D⁴)", pass: one(fluxRun(RAF, { Nu: 3 })), fail: one(fluxRun(1.5 * RAF, { Nu: 3 })) },
-  { rule: "A.flux-needs-nu", source: "Christensen & Aubert 2006: Ra_Q* = Ra*·Nu*", severity: "note", pass: one(fluxRun(RAF, { Nu: 3 })), fail: one(fluxRun(RAF)) },
+  { rule: "A.flux-needs-nu", source: "scaling study 2006 (Geophys. J. Int. 166, 97–114): Ra_Q* = Ra*·Nu*", severity: "note", pass: one(fluxRun(RAF, { Nu: 3 })), fail: one(fluxRun(RAF)) },
   // ---- B: significant-figure reading (common practice)
   { rule: "B.stated-value", source: "common practice: '1e-3' is [0.5e-3, 1.5e-3)", pass: one(baseRun(), { claim: claim([{ quantity: "E", value: "1e-3" }]) }), fail: one(baseRun(), { claim: claim([{ quantity: "E", value: "2e-3" }]) }) },
   { rule: "B.stated-vs-material", source: "Pm = ν/η", pass: one(baseRun({ material: { nu: "1e-6 m^2/s", eta: "2e-7 m^2/s" } }), { claim: claim([{ quantity: "Pm", value: "5" }]) }), fail: one(baseRun({ material: { nu: "1e-6 m^2/s", eta: "8e-7 m^2/s" } }), { claim: claim([{ quantity: "Pm", value: "5" }]) }) },
@@ -121,9 +121,9 @@ export const CASES: RuleCase[] = [
   { rule: "H.layer-edge-outside", source: "gap units, χ = 0.35: r_i = 0.538, r_o = 1.538", pass: one(baseRun({ stableLayer: { position: "top", edgeRadius: 1.4 } })), fail: one(baseRun({ conventions: { lengthScale: "outer-radius" }, controls: { E: 1e-3 * 0.65 ** 2 }, stableLayer: { position: "top", edgeRadius: 1.3 } })) },
   { rule: "H.reference-body-ratio", source: "PREM: r_i/r_o = 1221.5/3480 = 0.351", severity: "note", pass: one(baseRun({ stableLayer: { position: "top", edgeRadius: 1.4 } })), fail: one(baseRun({ geometry: { radiusRatio: 0.2 }, stableLayer: { position: "top", edgeRadius: 1.1 } })) },
   { rule: "H.stated-geometry", source: "arccos(0.35) = 69.51°", pass: one(baseRun(), { claim: claim([{ quantity: "tangentCylinderLatitudeDeg", value: "69.5" }]) }), fail: one(baseRun(), { claim: claim([{ quantity: "tangentCylinderLatitudeDeg", value: "70.0" }]) }) },
-  // ---- I: Christensen & Aubert 2006 scaling, notes only
-  { rule: "I.rossby-scaling", source: "Christensen & Aubert 2006: Ro = 0.85 Ra_Q*^0.41", severity: "note", pass: one(regime(RO_FIT * 1.2)), fail: one(regime(RO_FIT * 7.5)) },
-  { rule: "I.dipolar-boundary", source: "Christensen & Aubert 2006: dipolar below Ro_l ≈ 0.12", severity: "note", pass: one(baseRun({ diagnostics: { Rol: 0.05, dipolarity: 0.7 } })), fail: one(baseRun({ diagnostics: { Rol: 0.5, dipolarity: 0.7 } })) },
+  // ---- I: the 2006 scaling study (Geophys. J. Int. 166), notes only
+  { rule: "I.rossby-scaling", source: "scaling study 2006 (Geophys. J. Int. 166, 97–114): Ro = 0.85 Ra_Q*^0.41", severity: "note", pass: one(regime(RO_FIT * 1.2)), fail: one(regime(RO_FIT * 7.5)) },
+  { rule: "I.dipolar-boundary", source: "scaling study 2006 (Geophys. J. Int. 166, 97–114): dipolar below Ro_l ≈ 0.12", severity: "note", pass: one(baseRun({ diagnostics: { Rol: 0.05, dipolarity: 0.7 } })), fail: one(baseRun({ diagnostics: { Rol: 0.5, dipolarity: 0.7 } })) },
   // ---- J: benchmark, Christensen et al. 2001 PEPI 128 case 1
   { rule: "J.benchmark-setup", source: "Christensen et al. 2001: case 1 has Pm = 5", pass: one(bench({ kineticEnergy: EKIN })), fail: one(bench({ kineticEnergy: EKIN }, { Pm: 4 })) },
   { rule: "J.benchmark-values", source: "Christensen et al. 2001: E_kin 30.773, E_mag 626.41, ω −3.1017", pass: one(bench({ kineticEnergy: 30.8, magneticEnergy: 626, driftFrequency: -3.10 })), fail: one(bench({ kineticEnergy: 32, magneticEnergy: 626, driftFrequency: -3.10 })) },

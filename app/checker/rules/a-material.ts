@@ -18,12 +18,12 @@ export const RULES_A = {
   RaFlux: info(
     "A.raflux-from-material", "Flux Rayleigh number from g0, F, ρ, Ω and r_o",
     "A flux-flavoured Rayleigh number must equal g0·F/(4π·ρ·Ω'³·L⁴).",
-    "Christensen & Aubert 2006, Geophys. J. Int. 166, 97–114 (flux-based Rayleigh number)",
+    "Geophys. J. Int. 166, 97–114 (2006 scaling study) (flux-based Rayleigh number)",
   ),
   fluxNeedsNu: {
     id: "A.flux-needs-nu", family: "A", title: "Flux Rayleigh number without a Nusselt number",
     explanation: "A flux-based Rayleigh number converts to the other flavours only with the Nusselt number; without it they stay unknown.",
-    severities: ["note"], source: "Christensen & Aubert 2006, Geophys. J. Int. 166, 97–114",
+    severities: ["note"], source: "Geophys. J. Int. 166, 97–114 (2006 scaling study)",
   },
 } satisfies Record<string, RuleInfo>;
 

@@ -1,5 +1,5 @@
 /**
- * Family I: regime notes from Christensen & Aubert 2006 (GJI 166, 97–114), in their
+ * Family I: regime notes from the 2006 scaling study (GJI 166, 97–114), in their
  * convention (gap, E = ν/(ΩD²)): Ro ≈ 0.85·Ra_Q*^0.41, Ra_Q* = Ra*·Nu*,
  * Nu* = (Nu − 1)·E/Pr; dipolar dynamos below a local Rossby number ≈ 0.12.
  * More than policy.regimeFactor off is a note, never more.
@@ -8,7 +8,7 @@ import type { RunContext } from "../context.ts";
 import { CANONICAL, convert } from "../conventions.ts";
 import { flagOf, fmt, type Flag, type RuleInfo } from "../types.ts";
 
-const CA06 = "Christensen & Aubert 2006, Geophys. J. Int. 166, 97–114";
+const CA06 = "Geophys. J. Int. 166, 97–114 (2006 scaling study)";
 
 export const RULES_I = {
   rossby: {
