@@ -1,10 +1,10 @@
 import { createContext } from "react-router";
 import { createDatabase, type Database } from "~db/client";
 import { env } from "~/config/env.server";
-import { startOutboxWorker } from "~/mail/worker.server";
+import { startJobs } from "~/jobs/boss.server";
 
 // Kept on globalThis so the dev server's module reloads do not open a new pool each time.
-const g = globalThis as unknown as { __runproofDb?: ReturnType<typeof createDatabase>; __runproofWorker?: boolean };
+const g = globalThis as unknown as { __runproofDb?: ReturnType<typeof createDatabase>; __runproofWorker?: boolean; __runproofBoss?: Promise<{ stop(o?: object): Promise<void> } | null> };
 g.__runproofDb ??= createDatabase(env.DATABASE_URL);
 
 export const db: Database = g.__runproofDb.db;
@@ -15,16 +15,26 @@ export const dbContext = createContext<Database>();
 
 if (env.OUTBOX_WORKER && !g.__runproofWorker) {
   g.__runproofWorker = true;
-  startOutboxWorker(db, {
+  // pg-boss runs outbox delivery, reminders and digests (app/jobs/boss.server.ts).
+  g.__runproofBoss = startJobs(db, {
+    databaseUrl: env.DATABASE_URL,
     smtpHost: env.SMTP_HOST,
     smtpPort: env.SMTP_PORT,
     from: env.MAIL_FROM,
     pollMs: env.OUTBOX_POLL_MS,
+  }).catch((error) => {
+    console.warn("jobs: could not start:", error instanceof Error ? error.message : error);
+    return null;
   });
 }
 
 for (const signal of ["SIGTERM", "SIGINT"] as const) {
   process.once(signal, () => {
-    void sqlClient.end({ timeout: 5 }).finally(() => process.exit(0));
+    const boss = g.__runproofBoss ?? Promise.resolve(null);
+    void boss
+      .then((b) => b?.stop({ graceful: true, timeout: 5000 }))
+      .catch(() => {})
+      .then(() => sqlClient.end({ timeout: 5 }))
+      .finally(() => process.exit(0));
   });
 }

@@ -1,10 +1,11 @@
 import { hashPassword } from "better-auth/crypto";
 import { and, eq } from "drizzle-orm";
 import { randomUUID } from "node:crypto";
-import { parseEnv } from "../app/config/env-schema";
+import { parseEnv, type Env } from "../app/config/env-schema";
 import { createDatabase, type Database } from "./client";
 import { DEMO_PASSWORD, demoPeople, demoSubmission, demoVenue, type DemoKey } from "./demo-data";
-import { account, submissionMembers, submissions, user, venueMembers, venues } from "./schema";
+import { account, contributors, submissionMembers, submissions, user, venueMembers, venues } from "./schema";
+import { seedDemoRound } from "./seed-round";
 
 type Tx = Parameters<Parameters<Database["transaction"]>[0]>[0];
 
@@ -27,7 +28,7 @@ async function ensurePerson(tx: Tx, person: (typeof demoPeople)[number], passwor
 }
 
 /** Idempotent: a second run finds everything and changes nothing. */
-export async function seed(db: Database) {
+export async function seed(db: Database, env: Env = parseEnv(process.env)) {
   const passwordHash = await hashPassword(DEMO_PASSWORD);
   return db.transaction(async (tx) => {
     const ids = {} as Record<DemoKey, string>;
@@ -55,7 +56,19 @@ export async function seed(db: Database) {
         { submissionId: sub!.id, userId: ids.coauthor2, role: "co-author" },
       ])
       .onConflictDoNothing();
-    return { ids, venueId: venue!.id, submissionId: sub!.id };
+    const [listed] = await tx.select({ id: contributors.id }).from(contributors).where(eq(contributors.submissionId, sub!.id)).limit(1);
+    if (!listed) {
+      // The author list in order, with CRediT roles (ANSI/NISO Z39.104-2022), all accounts attached.
+      const credit = { author: ["Conceptualization", "Software", "Writing – original draft"], coauthor1: ["Formal analysis", "Visualization"], coauthor2: ["Methodology", "Writing – review & editing"] } as const;
+      await tx.insert(contributors).values(
+        (["author", "coauthor1", "coauthor2"] as const).map((key, i) => {
+          const p = demoPeople.find((d) => d.key === key)!;
+          return { submissionId: sub!.id, userId: ids[key], position: i + 1, name: p.name, email: p.email, affiliation: p.affiliation, orcid: "orcid" in p ? p.orcid : null, creditRoles: [...credit[key]], corresponding: key === "author" };
+        }),
+      );
+    }
+    const demoRound = await seedDemoRound(tx, env, { submissionId: sub!.id, authorId: ids.author });
+    return { ids, venueId: venue!.id, submissionId: sub!.id, roundId: demoRound.roundId };
   });
 }
 
@@ -63,7 +76,7 @@ if (import.meta.url === `file://${process.argv[1]}`) {
   const env = parseEnv(process.env);
   const { db, sql } = createDatabase(env.DATABASE_URL, 1);
   try {
-    const out = await seed(db);
+    const out = await seed(db, env);
     console.log(`demo seeded: venue ${demoVenue.slug}, ${Object.keys(out.ids).length} people, 1 submission`);
   } finally {
     await sql.end({ timeout: 5 });

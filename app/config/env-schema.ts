@@ -31,6 +31,8 @@ export const envSchema = z.object({
   S3_SECRET_ACCESS_KEY: z.string().min(1).default("S3RVER"),
   S3_FORCE_PATH_STYLE: flag.default(true),
   UPLOAD_LIMIT_MB: z.coerce.number().positive().default(25),
+  /** Public API calls per token per minute, counted per server process. */
+  API_RATE_LIMIT_PER_MINUTE: z.coerce.number().int().min(1).default(120),
 });
 
 export type Env = z.infer<typeof envSchema>;

@@ -1,11 +1,12 @@
 import { getFormProps, useForm } from "@conform-to/react";
 import { getZodConstraint, parseWithZod } from "@conform-to/zod/v4";
 import { eq } from "drizzle-orm";
-import { data, Form } from "react-router";
+import { data, Form, Link } from "react-router";
 import { user as userTable } from "~db/schema";
 import { profileSchema } from "~/auth/forms";
 import { requireUser } from "~/auth/guards.server";
 import { TextField } from "~/components/field";
+import { DigestForm } from "~/components/review/digest-form";
 import type { Route } from "./+types/account";
 
 export const meta: Route.MetaFunction = () => [{ title: "Your account · Runproof" }];
@@ -13,7 +14,7 @@ export const meta: Route.MetaFunction = () => [{ title: "Your account · Runproo
 export async function loader(args: Route.LoaderArgs) {
   const { user, db } = await requireUser(args);
   const [profile] = await db
-    .select({ name: userTable.name, email: userTable.email, affiliation: userTable.affiliation, orcid: userTable.orcid })
+    .select({ name: userTable.name, email: userTable.email, affiliation: userTable.affiliation, orcid: userTable.orcid, digest: userTable.digest })
     .from(userTable)
     .where(eq(userTable.id, user.id));
   return { profile: profile! };
@@ -44,6 +45,9 @@ export default function Account({ loaderData, actionData }: Route.ComponentProps
     <main className="mx-auto max-w-xl p-gutter">
       <h1 className="text-title">Your account</h1>
       <p className="mt-2 text-basalt-soft">Signed in as {profile.email}.</p>
+      <p className="mt-2">
+        <Link to="/account/tokens" className="underline">API tokens</Link> for scripts that push run records.
+      </p>
       {actionData?.saved ? (
         <p className="mt-3 rounded bg-lichen-wash p-3" role="status">
           Saved.
@@ -57,6 +61,7 @@ export default function Account({ loaderData, actionData }: Route.ComponentProps
           Save
         </button>
       </Form>
+      <DigestForm current={profile.digest} />
     </main>
   );
 }

@@ -1,13 +1,16 @@
+import { Link } from "react-router";
 import { requireUser } from "~/auth/guards.server";
+import { openVenues } from "~/workspace/submissions.server";
 import { dashboardFor, type DashboardItem } from "~/dashboard/queries.server";
+import { myDecisions, myReviews } from "~/review/dashboard.server";
 import type { Route } from "./+types/dashboard";
 
 export const meta: Route.MetaFunction = () => [{ title: "What needs me · Runproof" }];
 
 export async function loader(args: Route.LoaderArgs) {
   const { user, db } = await requireUser(args);
-  const lists = await dashboardFor(db, user.id);
-  return { name: user.name, admin: user.role === "admin", ...lists };
+  const [lists, reviews, venuesOpen, decisions] = await Promise.all([dashboardFor(db, user.id), myReviews(db, user.id), openVenues(db), myDecisions(db, user.id)]);
+  return { name: user.name, admin: user.role === "admin", ...lists, reviews, venuesOpen, decisions };
 }
 
 const stageLabel: Record<string, string> = {
@@ -30,7 +33,9 @@ function Section({ title, items, empty, testId }: { title: string; items: Dashbo
         <ul className="mt-3 divide-y divide-rule">
           {items.map((s) => (
             <li key={s.id} className="py-2">
-              <span className="font-semibold">{s.title}</span>
+              <Link to={`/submissions/${s.id}`} className="font-semibold">
+                {s.title}
+              </Link>
               <span className="ml-2 text-caption text-basalt-soft">
                 {s.venueName} · {stageLabel[s.stage] ?? s.stage}
               </span>
@@ -71,6 +76,56 @@ export default function Dashboard({ loaderData: d }: Route.ComponentProps) {
         ) : null}
         {d.coAuthored.length > 0 ? (
           <Section title="As co-author" items={d.coAuthored} empty="" testId="role-co-author" />
+        ) : null}
+        {d.editorVenues.length > 0 ? (
+          <section className="card" data-testid="editor-desks">
+            <h2 className="text-lead">Editor's desk</h2>
+            <ul className="mt-2">
+              {d.editorVenues.map((v) => (
+                <li key={v.id}>
+                  <a className="underline" href={`/venues/${v.id}/desk`}>{v.name}: rounds, reviewers, decisions</a>
+                </li>
+              ))}
+            </ul>
+          </section>
+        ) : null}
+        {d.reviews.length > 0 ? (
+          <section className="card" data-testid="my-reviews">
+            <h2 className="text-lead">Your reviews</h2>
+            <ul className="mt-2 divide-y divide-rule">
+              {d.reviews.map((r) => (
+                <li key={r.id} className="py-1">
+                  <a className="underline" href={r.href}>{r.title}, round {r.round}</a>
+                  <span className="ml-2 text-caption text-basalt-soft">{r.state === "submitted" ? "submitted" : `due ${r.dueAt ?? "—"}`}</span>
+                </li>
+              ))}
+            </ul>
+          </section>
+        ) : null}
+        {d.decisions.length > 0 ? (
+          <section className="card" data-testid="my-decisions">
+            <h2 className="text-lead">Decisions on your submissions</h2>
+            <ul className="mt-2 divide-y divide-rule">
+              {d.decisions.map((r) => (
+                <li key={r.roundId} className="py-1">
+                  <a className="underline" href={r.href}>{r.title}, round {r.round}: {r.decision}</a>
+                  <span className="ml-2 text-caption text-basalt-soft">released {r.releasedAt}</span>
+                </li>
+              ))}
+            </ul>
+          </section>
+        ) : null}
+        {d.venuesOpen.length > 0 ? (
+          <section className="card" data-testid="start-submission">
+            <h2 className="text-lead">Start a submission</h2>
+            <ul className="mt-2">
+              {d.venuesOpen.map((v) => (
+                <li key={v.id}>
+                  <Link to={`/venues/${v.id}/submissions/new`}>Start a submission to {v.name}</Link>
+                </li>
+              ))}
+            </ul>
+          </section>
         ) : null}
         {d.admin ? (
           <section className="card" data-testid="role-admin">

@@ -1,5 +1,5 @@
 import { and, desc, eq, max } from "drizzle-orm";
-import { roundRuns, runs, runVersions } from "~db/schema";
+import { attachments, roundRuns, runs, runVersions } from "~db/schema";
 import { runSchema, type RunRecord } from "~/checker/schema";
 import { zodIssues } from "./zod-issues";
 import { InvalidInput, StateConflict, type Tx } from "./types";
@@ -66,6 +66,17 @@ export async function reviseRun(
     .insert(runVersions)
     .values({ runId: run.id, version: current + 1, record: opts.record, origin: opts.origin, createdBy: opts.userId })
     .returning();
+  // The new version keeps the series and spectra the round's previous version had attached.
+  const [previous] = await tx
+    .select({ id: roundRuns.runVersionId })
+    .from(roundRuns)
+    .where(and(eq(roundRuns.roundId, opts.roundId), eq(roundRuns.runId, run.id)));
+  if (previous) {
+    const kept = await tx.select().from(attachments).where(and(eq(attachments.runVersionId, previous.id), eq(attachments.active, true)));
+    if (kept.length) {
+      await tx.insert(attachments).values(kept.map(({ id: _id, createdAt: _c, ...a }) => ({ ...a, runVersionId: version!.id })));
+    }
+  }
   await tx
     .insert(roundRuns)
     .values({ roundId: opts.roundId, runId: run.id, runVersionId: version!.id })

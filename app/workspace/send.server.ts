@@ -1,6 +1,6 @@
-import { and, eq, isNull } from "drizzle-orm";
+import { and, eq, inArray, isNull, ne } from "drizzle-orm";
 import type { Database } from "~db/client";
-import { flags, rounds, submissions, user, venueMembers, venues } from "~db/schema";
+import { flags, rounds, submissionMembers, submissions, user, venueMembers, venues } from "~db/schema";
 import { env } from "~/config/env.server";
 import { compose } from "~/mail/compose";
 import { enqueueMail } from "~/mail/outbox.server";
@@ -60,6 +60,28 @@ export async function sendRound(db: Database, opts: { roundId: string; userId: s
           action: { label: "Open the editor's desk", url: `${env.APP_URL}/venues/${sub!.venueId}/desk` },
         }),
         { dedupeKey: `round-sent:${round.id}:${editor.email}` },
+      );
+    }
+    // The other authors learn that the round left their hands (and is now frozen).
+    const authors = await tx
+      .selectDistinct({ email: user.email, name: user.name })
+      .from(submissionMembers)
+      .innerJoin(user, eq(user.id, submissionMembers.userId))
+      .where(and(eq(submissionMembers.submissionId, sub!.id), inArray(submissionMembers.role, ["author", "co-author"]), ne(submissionMembers.userId, opts.userId)));
+    for (const a of authors) {
+      await enqueueMail(
+        tx,
+        a.email,
+        compose({
+          subject: `Round ${round.number} sent to the editor: ${sub!.title}`,
+          greeting: `Hello ${a.name},`,
+          paragraphs: [
+            `Round ${round.number} of "${sub!.title}" was sent to the editor; its runs and claims are now frozen.`,
+            "You will hear when the editor decides; changes go into the next round.",
+          ],
+          action: { label: "Open the round", url: `${env.APP_URL}/venues/${sub!.venueId}/submissions/${sub!.id}/rounds/${round.number}` },
+        }),
+        { dedupeKey: `round-sent-author:${round.id}:${a.email}` },
       );
     }
     return round;

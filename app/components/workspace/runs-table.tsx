@@ -1,0 +1,87 @@
+import { Link } from "react-router";
+import type { RunRow } from "~/workspace/views";
+import { useRunsPage } from "./use-runs-page";
+
+const COLUMNS: { key: keyof RunRow; label: string; numeric?: boolean }[] = [
+  { key: "label", label: "Run" },
+  { key: "version", label: "Version", numeric: true },
+  { key: "E", label: "E", numeric: true },
+  { key: "RaRotating", label: "Ra (rotating)", numeric: true },
+  { key: "Pr", label: "Pr", numeric: true },
+  { key: "Pm", label: "Pm", numeric: true },
+  { key: "Rm", label: "Rm", numeric: true },
+  { key: "runLengthMagnetic", label: "Run length (magnetic times)", numeric: true },
+  { key: "mismatch", label: "Mismatches", numeric: true },
+  { key: "caution", label: "Cautions", numeric: true },
+  { key: "note", label: "Notes", numeric: true },
+];
+
+export function formatNumber(v: unknown): string {
+  if (typeof v !== "number") return v === null || v === undefined ? "—" : String(v);
+  if (v === 0 || (Math.abs(v) >= 0.01 && Math.abs(v) < 1e4)) return String(Number(v.toPrecision(4)));
+  return v.toExponential(2);
+}
+
+/** One row per run with key controls, derived numbers and flag counts; sorted by any column. */
+export function RunsTable({ rows, runHref, csvHref, source }: { rows: RunRow[]; runHref: (row: RunRow) => string; csvHref?: string; source?: string }) {
+  // With `source`, sorting and paging go through a fetcher against the round's API route.
+  const { rows: sorted, sort, setSort, page, pages, setPage, pending } = useRunsPage(rows, source);
+  return (
+    <div>
+      <div className="overflow-x-auto">
+        <table className="w-full text-left text-caption" data-testid="runs-table" aria-busy={pending}>
+          <caption className="sr-only">Runs of this round</caption>
+          <thead>
+            <tr className="border-b border-rule">
+              {COLUMNS.map((c) => (
+                <th key={c.key} scope="col" aria-sort={sort.key === c.key ? (sort.dir === 1 ? "ascending" : "descending") : "none"} className="py-1 pr-3">
+                  <button type="button" className="font-semibold" onClick={() => c.key !== "runId" && c.key !== "origin" && setSort(c.key)}>
+                    {c.label}
+                    {sort.key === c.key ? (sort.dir === 1 ? " ▲" : " ▼") : ""}
+                  </button>
+                </th>
+              ))}
+            </tr>
+          </thead>
+          <tbody>
+            {sorted.map((r) => (
+              <tr key={r.runId} className="border-b border-rule">
+                {COLUMNS.map((c) =>
+                  c.key === "label" ? (
+                    <th key={c.key} scope="row" className="py-1 pr-3">
+                      <Link to={runHref(r)}>{r.label}</Link>
+                    </th>
+                  ) : (
+                    <td key={c.key} className={`py-1 pr-3 ${c.key === "mismatch" && r.mismatch ? "font-semibold text-ember" : ""}`}>
+                      {formatNumber(r[c.key])}
+                    </td>
+                  ),
+                )}
+              </tr>
+            ))}
+          </tbody>
+        </table>
+      </div>
+      {pages > 1 ? (
+        <nav aria-label="Pages of runs" className="mt-2 flex items-center gap-2 text-caption" data-testid="runs-pager">
+          <button type="button" className="btn-quiet" disabled={page <= 1 || pending} onClick={() => setPage(page - 1)}>
+            Previous
+          </button>
+          <span>
+            Page {page} of {pages}
+          </span>
+          <button type="button" className="btn-quiet" disabled={page >= pages || pending} onClick={() => setPage(page + 1)}>
+            Next
+          </button>
+        </nav>
+      ) : null}
+      {csvHref ? (
+        <p className="mt-2 text-caption">
+          <a href={csvHref} download>
+            Download the table as CSV
+          </a>
+        </p>
+      ) : null}
+    </div>
+  );
+}

@@ -1,0 +1,41 @@
+import type { Database } from "~db/client";
+import { roundRunList } from "~/workspace/runs.server";
+import { roundContext, type RoundContext } from "./context.server";
+import { diffFlags, diffParameters, groupByRuleAndRun } from "./diff";
+import { roundFlags } from "./documents.server";
+import { releasedRemarks, responsesTo } from "./remarks.server";
+import { renderRichText } from "./tiptap/render.server";
+
+/** Round N against round N-1: flags diff by fingerprint, parameter diff per run, remarks and answers. */
+export async function roundChanges(db: Database, ctx: RoundContext) {
+  if (ctx.round.number < 2) return null;
+  const prev = await roundContext(db, { submissionId: ctx.submission.id, number: ctx.round.number - 1 });
+  const [before, after, runsBefore, runsAfter, remarks] = await Promise.all([
+    roundFlags(db, prev.round.id),
+    roundFlags(db, ctx.round.id),
+    roundRunList(db, prev.round.id),
+    roundRunList(db, ctx.round.id),
+    releasedRemarks(db, prev.round),
+  ]);
+  const flags = diffFlags(before, after);
+  const old = new Map(runsBefore.map((r) => [r.runId, r]));
+  const runs = runsAfter.map((r) => {
+    const was = old.get(r.runId);
+    return {
+      label: r.label,
+      status: !was ? ("new" as const) : was.versionId === r.versionId ? ("unchanged" as const) : ("revised" as const),
+      fromVersion: was?.version ?? null,
+      toVersion: r.version,
+      changes: was && was.versionId !== r.versionId ? diffParameters(was.record, r.record).map((c) => ({ path: c.path, before: JSON.stringify(c.before) ?? "—", after: JSON.stringify(c.after) ?? "—" })) : [],
+    };
+  });
+  const removed = runsBefore.filter((r) => !runsAfter.some((a) => a.runId === r.runId)).map((r) => r.label);
+  const answers = await responsesTo(db, remarks.map((r) => r.id));
+  return {
+    previousNumber: prev.round.number,
+    flags: { added: groupByRuleAndRun(flags.added), resolved: groupByRuleAndRun(flags.resolved), persisting: groupByRuleAndRun(flags.persisting), counts: { added: flags.added.length, resolved: flags.resolved.length, persisting: flags.persisting.length } },
+    runs,
+    removed,
+    remarks: remarks.map((r) => ({ id: r.id, reviewer: r.reviewer, anchor: r.anchor, html: renderRichText(r.body), response: answers.get(r.id) ?? null })),
+  };
+}

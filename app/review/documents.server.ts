@@ -1,0 +1,53 @@
+import { asc, eq } from "drizzle-orm";
+import { contributors, flags } from "~db/schema";
+import { roundClaims } from "~/workspace/claims.server";
+import { roundRunList } from "~/workspace/runs.server";
+import type { Db } from "~/workspace/types";
+import type { RoundContext } from "./context.server";
+import { decisionLetterPdf } from "./pdf/letter.server";
+import { reviewerPacketPdf } from "./pdf/packet.server";
+import { releasedRemarks } from "./remarks.server";
+
+export async function roundFlags(db: Db, roundId: string) {
+  return db.select().from(flags).where(eq(flags.roundId, roundId)).orderBy(asc(flags.severity), asc(flags.rule), asc(flags.runLabel));
+}
+
+/** The packet of a round; a double-blind venue's packet carries no author names. */
+export async function packetFor(db: Db, ctx: RoundContext) {
+  const [claimRows, runRows, flagRows, people] = await Promise.all([
+    roundClaims(db, ctx.round.id),
+    roundRunList(db as never, ctx.round.id),
+    roundFlags(db, ctx.round.id),
+    db.select({ name: contributors.name, affiliation: contributors.affiliation }).from(contributors).where(eq(contributors.submissionId, ctx.submission.id)).orderBy(asc(contributors.position)),
+  ]);
+  const authors = ctx.venue.blinding === "double" || !people.length ? null : people.map((p) => `${p.name}${p.affiliation ? ` (${p.affiliation})` : ""}`).join("; ");
+  return reviewerPacketPdf({
+    venueName: ctx.venue.name,
+    title: ctx.submission.title,
+    authors,
+    roundNumber: ctx.round.number,
+    claims: claimRows,
+    runs: runRows.map((r) => ({ label: r.label, version: r.version, record: r.record })),
+    flags: flagRows,
+  });
+}
+
+/** The decision letter with released remarks, as authors may read it. */
+export async function letterFor(db: Db, ctx: RoundContext) {
+  const remarks = await releasedRemarks(db, ctx.round);
+  return decisionLetterPdf({
+    venueName: ctx.venue.name,
+    title: ctx.submission.title,
+    roundNumber: ctx.round.number,
+    decision: ctx.round.decision ?? "",
+    decidedAt: ctx.round.decidedAt,
+    letter: ctx.round.letter,
+    remarks,
+  });
+}
+
+export function pdfResponse(bytes: Uint8Array, filename: string) {
+  return new Response(Buffer.from(bytes), {
+    headers: { "content-type": "application/pdf", "content-disposition": `inline; filename="${filename}"`, "cache-control": "private, no-store" },
+  });
+}

@@ -1,0 +1,43 @@
+import { and, asc, desc, eq } from "drizzle-orm";
+import { auditLog, invitations, reviews, rounds, user } from "~db/schema";
+import type { Db } from "~/workspace/types";
+import type { RoundContext } from "./context.server";
+import { roundFlags } from "./documents.server";
+import { anchorLabels } from "./remarks.server";
+import { reportParts } from "./reviews.server";
+import { renderRichText } from "./tiptap/render.server";
+
+/** What the editor's round page shows: invitations, full reports (with editor-only notes), audit. */
+export async function editorialView(db: Db, ctx: RoundContext) {
+  const [invites, reviewRows, audit, flagRows, previous] = await Promise.all([
+    db.select({ id: invitations.id, email: invitations.email, state: invitations.state, dueAt: invitations.dueAt, createdAt: invitations.createdAt }).from(invitations).where(eq(invitations.roundId, ctx.round.id)).orderBy(asc(invitations.createdAt)),
+    db
+      .select({ id: reviews.id, number: reviews.number, state: reviews.state, recommendation: reviews.recommendation, editorNote: reviews.editorNote, dueAt: reviews.dueAt, submittedAt: reviews.submittedAt, name: user.name, email: user.email })
+      .from(reviews)
+      .innerJoin(user, eq(user.id, reviews.reviewerId))
+      .where(eq(reviews.roundId, ctx.round.id))
+      .orderBy(asc(reviews.number)),
+    db.select({ id: auditLog.id, action: auditLog.action, detail: auditLog.detail, at: auditLog.at, actor: user.name }).from(auditLog).leftJoin(user, eq(user.id, auditLog.actorId)).where(eq(auditLog.submissionId, ctx.submission.id)).orderBy(desc(auditLog.at)),
+    roundFlags(db, ctx.round.id),
+    ctx.round.number > 1 ? db.select({ id: rounds.id }).from(rounds).where(and(eq(rounds.submissionId, ctx.submission.id), eq(rounds.number, ctx.round.number - 1))) : Promise.resolve([]),
+  ]);
+  const label = await anchorLabels(db, ctx.round.id);
+  const flagName = new Map(flagRows.map((f) => [f.id, `${f.rule}${f.runLabel ? ` on ${f.runLabel}` : ""}`]));
+  const reports = await Promise.all(
+    reviewRows.map(async (r) => {
+      const parts = await reportParts(db, r.id);
+      // Drafts stay private to the reviewer until submitted.
+      const visible = r.state === "submitted";
+      return {
+        ...r,
+        editorNote: visible ? renderRichText(r.editorNote) : "",
+        remarks: visible ? parts.remarks.map((m) => ({ id: m.id, anchor: label(m.anchorKind, m.anchorRef), html: renderRichText(m.body) })) : [],
+        verdicts: visible ? parts.verdicts.map((v) => ({ flag: flagName.get(v.flagId) ?? v.flagId, verdict: v.verdict })) : [],
+      };
+    }),
+  );
+  const counts = { mismatch: 0, caution: 0, note: 0 } as Record<string, number>;
+  for (const f of flagRows) counts[f.severity] = (counts[f.severity] ?? 0) + 1;
+  return { invites, reports, audit, flagCounts: counts, hasPrevious: previous.length > 0 };
+}
+

@@ -1,0 +1,52 @@
+import { Mark, mergeAttributes, type Extensions } from "@tiptap/core";
+import StarterKit from "@tiptap/starter-kit";
+
+/**
+ * Inline maths stored as TeX source. It renders as `<code class="tex">…</code>` on the page and
+ * in mail; we keep the TeX text rather than typeset it, so nothing is lost and nothing executes.
+ */
+export const Tex = Mark.create({
+  name: "tex",
+  excludes: "_",
+  code: true,
+  parseHTML: () => [{ tag: "code.tex" }],
+  renderHTML: ({ HTMLAttributes }) => ["code", mergeAttributes(HTMLAttributes, { class: "tex" }), 0],
+});
+
+/**
+ * The one schema of remarks and letters: the editor component and the server renderer both use
+ * it, so what a reviewer typed is exactly what the server can render (and nothing more).
+ */
+export const richTextExtensions: Extensions = [
+  StarterKit.configure({
+    heading: { levels: [2, 3, 4] },
+    link: { openOnClick: false, autolink: true, protocols: ["http", "https", "mailto"] },
+    underline: false,
+    horizontalRule: false,
+  }),
+  Tex,
+];
+
+export type RichDoc = { type: "doc"; content?: unknown[] };
+
+export const emptyDoc: RichDoc = { type: "doc", content: [{ type: "paragraph" }] };
+
+/** Plain text of a Tiptap document, for mail text parts, PDFs and search. */
+export function docText(doc: unknown): string {
+  const out: string[] = [];
+  const walk = (node: unknown) => {
+    if (!node || typeof node !== "object") return;
+    const n = node as { type?: string; text?: string; content?: unknown[]; marks?: { type: string }[] };
+    if (typeof n.text === "string") out.push(n.marks?.some((m) => m.type === "tex") ? `$${n.text}$` : n.text);
+    if (n.type === "hardBreak") out.push("\n");
+    n.content?.forEach(walk);
+    if (n.type && ["paragraph", "heading", "listItem", "codeBlock", "blockquote"].includes(n.type)) out.push("\n");
+  };
+  walk(doc);
+  return out.join("").replace(/\n{3,}/g, "\n\n").trim();
+}
+
+/** A document is empty when it holds no text at all. */
+export function isEmptyDoc(doc: unknown) {
+  return docText(doc).length === 0;
+}

@@ -1,0 +1,44 @@
+import { asc, eq } from "drizzle-orm";
+import type { Database } from "~db/client";
+import { contributors } from "~db/schema";
+import type { RunRecord } from "~/checker/schema";
+import { roundClaims } from "~/workspace/claims.server";
+import { roundFlags } from "~/workspace/flags-query.server";
+import { roundRunRows, runPlots } from "~/workspace/round-data.server";
+import { roundRunList } from "~/workspace/runs.server";
+import type { RoundContext } from "./context.server";
+import { anchorLabels } from "./remarks.server";
+import { reportParts } from "./reviews.server";
+import { renderRichText } from "./tiptap/render.server";
+
+/**
+ * The frozen round as the reviewer reads it, plus their own report. Authors' names appear only
+ * at single-blind venues; no other reviewer's anything is selected.
+ */
+export async function reviewerView(db: Database, ctx: RoundContext, review: { id: string }) {
+  const [claimRows, runRows, versions, flagRows, parts, people] = await Promise.all([
+    roundClaims(db, ctx.round.id),
+    roundRunRows(db, ctx.round.id),
+    roundRunList(db, ctx.round.id),
+    roundFlags(db, ctx.round.id),
+    reportParts(db, review.id),
+    ctx.venue.blinding === "double"
+      ? Promise.resolve([])
+      : db.select({ name: contributors.name, affiliation: contributors.affiliation }).from(contributors).where(eq(contributors.submissionId, ctx.submission.id)).orderBy(asc(contributors.position)),
+  ]);
+  const plots = await Promise.all(versions.map(async (v) => ({ label: v.label, ...(await runPlots(db, v.versionId, v.record as RunRecord)) })));
+  const label = await anchorLabels(db, ctx.round.id);
+  return {
+    authors: people,
+    claims: claimRows.map((c) => {
+      const rec = c.record as { title?: string; runs?: { label: string; part: string }[]; stated?: { quantity: string; value: string; run?: string }[] };
+      return { id: c.id, figure: c.figure, statement: c.statement, title: rec.title ?? "", runs: rec.runs ?? [], stated: rec.stated ?? [] };
+    }),
+    runRows,
+    plots: plots.map((p) => ({ label: p.label, series: p.series, spectrum: p.spectrum })),
+    flags: flagRows,
+    verdicts: Object.fromEntries(parts.verdicts.map((v) => [v.flagId, v.verdict])) as Record<string, string>,
+    // The reviewer's own remarks come with their JSON too, so they can be edited until submitted.
+    remarks: parts.remarks.map((m) => ({ id: m.id, anchorKind: m.anchorKind, anchorRef: m.anchorRef, anchor: label(m.anchorKind, m.anchorRef), html: renderRichText(m.body), body: m.body })),
+  };
+}

@@ -1,0 +1,45 @@
+import { and, eq } from "drizzle-orm";
+import type { Database } from "~db/client";
+import { claims } from "~db/schema";
+import { idParam, roundForCaller } from "~/api/access.server";
+import { requireApiCaller } from "~/api/auth.server";
+import { apiError, apiHandle } from "~/api/errors.server";
+import { methodNotAllowed, parseBody } from "~/api/input.server";
+import { claimUpdateSchema } from "~/api/schemas";
+import { claimOut } from "~/api/views.server";
+import { dbContext } from "~/db.server";
+import { updateClaim } from "~/workspace/claims.server";
+import { recheckRound } from "~/workspace/recheck.server";
+import type { Route } from "./+types/claim";
+
+async function claimOfRound(db: Database, roundId: string, claimId: string | undefined) {
+  const [row] = await db.select().from(claims).where(and(eq(claims.id, idParam(claimId)), eq(claims.roundId, roundId)));
+  if (!row) throw apiError(404, "not_found", "No such claim in this round.");
+  return row;
+}
+
+/** GET …/claims/:claimId */
+export function loader({ request, context, params }: Route.LoaderArgs) {
+  return apiHandle(async () => {
+    const db = context.get(dbContext);
+    const caller = await requireApiCaller(request, db, { scope: "read" });
+    const { round } = await roundForCaller(db, caller.userId, params.submissionId, params.round, "read");
+    const row = await claimOfRound(db, round.id, params.claimId);
+    return Response.json(claimOut(row), { headers: { etag: `"${row.version}"` } });
+  });
+}
+
+/** PUT …/claims/:claimId — applies only to the version you edited (`version`); else 409. */
+export function action({ request, context, params }: Route.ActionArgs) {
+  if (request.method !== "PUT") return methodNotAllowed(["GET", "PUT"]);
+  return apiHandle(async () => {
+    const db = context.get(dbContext);
+    const caller = await requireApiCaller(request, db, { scope: "write:runs" });
+    const { round } = await roundForCaller(db, caller.userId, params.submissionId, params.round, "write");
+    await claimOfRound(db, round.id, params.claimId);
+    const body = await parseBody(request, claimUpdateSchema, "The claim update is not valid.");
+    const row = await updateClaim(db, round.id, params.claimId!, body.version, body);
+    await recheckRound(db, round.id);
+    return Response.json(claimOut(row), { headers: { etag: `"${row.version}"` } });
+  });
+}

@@ -1,0 +1,15 @@
+import { data } from "react-router";
+import { InvalidInput, PayloadTooLarge, StateConflict } from "./types";
+
+export type ServiceError = { error: { message: string; issues: { path: string; message: string }[] } };
+
+/**
+ * Turns the services' typed errors into a 400/409/413 reply an action can return (so the form
+ * shows what, where and how to fix); anything else is a bug and propagates.
+ */
+export function serviceError(e: unknown, extra: Record<string, unknown> = {}) {
+  if (e instanceof InvalidInput) return data({ ...extra, error: { message: e.message, issues: e.issues } }, { status: 400 });
+  if (e instanceof StateConflict) return data({ ...extra, error: { message: e.message, issues: [] } }, { status: 409 });
+  if (e instanceof PayloadTooLarge) return data({ ...extra, error: { message: e.message, issues: [] } }, { status: 413 });
+  throw e;
+}

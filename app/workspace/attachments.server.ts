@@ -1,0 +1,117 @@
+import { createHash, randomUUID } from "node:crypto";
+import { PassThrough } from "node:stream";
+import { and, eq } from "drizzle-orm";
+import type { Database } from "~db/client";
+import { attachments, roundRuns, storedFiles } from "~db/schema";
+import { CsvFormatError } from "~/checker/csv";
+import { parseCsvStream } from "~/checker/csv-stream";
+import { storage } from "~/storage/storage.server";
+import { recheckRound } from "./recheck.server";
+import { draftRoundById } from "./rounds.server";
+import { InvalidInput, PayloadTooLarge } from "./types";
+
+export type AttachOptions = {
+  roundId: string;
+  runId: string;
+  kind: "series" | "spectrum";
+  body: ReadableStream<Uint8Array>;
+  filename: string;
+  userId: string;
+  limitBytes: number;
+};
+
+const mb = (n: number) => `${(n / 1024 / 1024).toFixed(n < 1024 * 1024 ? 2 : 0)} MB`;
+
+/**
+ * Attaches a time-series or spectrum CSV to the version of a run that a draft round uses.
+ * The body is read once: each chunk goes both to object storage and to the CSV parser, so a
+ * large file is never held whole in memory. The size limit is enforced while reading. On any
+ * failure the uploaded object is removed and no row is written.
+ */
+export async function attachCsv(db: Database, opts: AttachOptions): Promise<{ attachmentId: string; rowCount: number; columns: string[] }> {
+  await draftRoundById(db, opts.roundId);
+  const [pointer] = await db
+    .select({ runVersionId: roundRuns.runVersionId })
+    .from(roundRuns)
+    .where(and(eq(roundRuns.roundId, opts.roundId), eq(roundRuns.runId, opts.runId)));
+  if (!pointer) throw new InvalidInput("No such run in this round.", [{ path: "runId", message: "The run is not part of this round." }]);
+
+  const key = `attachments/${opts.roundId}/${opts.runId}/${randomUUID()}.csv`;
+  const hash = createHash("sha256");
+  const toStorage = new PassThrough();
+  let size = 0;
+  let tooLarge = false;
+  let uploaded = false;
+
+  // One pass over the body: count, hash, forward to storage (respecting its back-pressure), parse.
+  async function* chunks() {
+    const reader = opts.body.getReader();
+    try {
+      for (;;) {
+        const { done, value } = await reader.read();
+        if (done) break;
+        size += value.byteLength;
+        if (size > opts.limitBytes) {
+          tooLarge = true;
+          throw new PayloadTooLarge(
+            `The file "${opts.filename}" is larger than the upload limit of ${mb(opts.limitBytes)}; nothing was stored. Thin the series (e.g. every n-th row) or split it, then upload again.`,
+          );
+        }
+        hash.update(value);
+        if (!toStorage.write(value)) await new Promise((res) => toStorage.once("drain", res));
+        yield value;
+      }
+    } finally {
+      reader.releaseLock();
+    }
+  }
+
+  const upload = storage.put(key, toStorage, "text/csv").then(() => (uploaded = true));
+  upload.catch(() => {});
+  let columns: Record<string, number[]>;
+  try {
+    columns = await parseCsvStream(chunks(), opts.kind);
+    if (tooLarge) throw new PayloadTooLarge(`The file "${opts.filename}" is larger than the upload limit of ${mb(opts.limitBytes)}; nothing was stored.`);
+    toStorage.end();
+    await upload;
+  } catch (e) {
+    toStorage.destroy();
+    await upload.catch(() => {});
+    await storage.remove(key).catch(() => {});
+    if (tooLarge) {
+      throw e instanceof PayloadTooLarge ? e : new PayloadTooLarge(`The file "${opts.filename}" is larger than the upload limit of ${mb(opts.limitBytes)}; nothing was stored.`);
+    }
+    if (e instanceof CsvFormatError) {
+      throw new InvalidInput(`The ${opts.kind} CSV "${opts.filename}" could not be read; nothing was stored. Fix the line named below and upload again.`, [
+        { path: e.line !== undefined ? `line ${e.line}` : "file", message: e.message.replace(/^line \d+: /, "") },
+      ]);
+    }
+    throw e;
+  }
+
+  const names = Object.keys(columns);
+  const rowCount = columns[names[0]!]?.length ?? 0;
+  let attachmentId: string;
+  try {
+    attachmentId = await db.transaction(async (tx) => {
+      const [file] = await tx
+        .insert(storedFiles)
+        .values({ key, filename: opts.filename, contentType: "text/csv", size, sha256: hash.digest("hex"), uploadedBy: opts.userId })
+        .returning({ id: storedFiles.id });
+      await tx
+        .update(attachments)
+        .set({ active: false })
+        .where(and(eq(attachments.runVersionId, pointer.runVersionId), eq(attachments.kind, opts.kind), eq(attachments.active, true)));
+      const [row] = await tx
+        .insert(attachments)
+        .values({ runVersionId: pointer.runVersionId, kind: opts.kind, fileId: file!.id, columns: names, rowCount, data: columns })
+        .returning({ id: attachments.id });
+      return row!.id;
+    });
+  } catch (e) {
+    if (uploaded) await storage.remove(key).catch(() => {});
+    throw e;
+  }
+  await recheckRound(db, opts.roundId);
+  return { attachmentId, rowCount, columns: names };
+}

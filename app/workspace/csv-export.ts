@@ -1,0 +1,15 @@
+/**
+ * CSV writing per RFC 4180: records end with CRLF; a field containing a comma, a double quote,
+ * CR or LF is enclosed in double quotes, and a double quote inside it is doubled (§2, rules 6–7).
+ */
+export type Cell = string | number | boolean | null | undefined;
+
+export function csvField(value: Cell): string {
+  if (value === null || value === undefined) return "";
+  const s = typeof value === "number" ? (Number.isFinite(value) ? String(value) : "") : String(value);
+  return /[",\r\n]/.test(s) ? `"${s.replace(/"/g, '""')}"` : s;
+}
+
+export function toCsv(header: string[], rows: Cell[][]): string {
+  return [header, ...rows].map((r) => r.map(csvField).join(",")).join("\r\n") + "\r\n";
+}

@@ -1,0 +1,46 @@
+import { asc, eq } from "drizzle-orm";
+import type { Database } from "~db/client";
+import { claims, flags } from "~db/schema";
+import { ruleById } from "~/checker/registry";
+
+import type { FlagView } from "./views";
+
+export type { FlagView };
+
+/** Numbers to four significant digits (the checker keeps full precision; people read four). */
+const show = (v: unknown) =>
+  v === undefined || v === null ? null : typeof v === "number" ? (Number.isInteger(v) && Math.abs(v) < 1e6 ? String(v) : Number(v.toPrecision(4)).toString()) : String(v);
+
+/** A round's stored flags, with the rule's one-line explanation beside each. */
+export async function roundFlags(db: Database, roundId: string): Promise<FlagView[]> {
+  const rows = await db
+    .select({ flag: flags, claimTitle: claims.figure, claimRecord: claims.record })
+    .from(flags)
+    .leftJoin(claims, eq(claims.id, flags.claimId))
+    .where(eq(flags.roundId, roundId))
+    // A stable order (fingerprint last) so a list does not reshuffle when it revalidates.
+    .orderBy(asc(flags.severity), asc(flags.rule), asc(flags.runLabel), asc(flags.fingerprint), asc(flags.message));
+  return rows.map(({ flag: f, claimTitle, claimRecord }) => {
+    const info = ruleById(f.rule);
+    const d = f.detail as Record<string, unknown>;
+    const title = (claimRecord as { title?: string } | null)?.title;
+    return {
+      id: f.id,
+      rule: f.rule,
+      ruleTitle: info?.title ?? f.rule,
+      explanation: info?.explanation ?? "",
+      severity: f.severity,
+      runLabel: f.runLabel,
+      claimId: f.claimId,
+      claimTitle: f.claimId ? [claimTitle, title].filter(Boolean).join(": ") || "claim" : null,
+      claimRow: typeof d.claimRow === "number" ? d.claimRow : null,
+      quantities: f.quantities,
+      message: f.message,
+      expected: show(d.expected),
+      found: show(d.found),
+      tolerance: show(d.tolerance),
+      source: show(d.source) ?? info?.source ?? "",
+      authorAnswer: f.authorAnswer,
+    };
+  });
+}

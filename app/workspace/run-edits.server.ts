@@ -1,0 +1,86 @@
+import { eq } from "drizzle-orm";
+import type { Database } from "~db/client";
+import { namelistMaps } from "~db/schema";
+import { createClaim, deleteClaim, updateClaim, type ClaimInput } from "./claims.server";
+import { type KeyMap, mergeRecord, namelistToRecord } from "./namelist-map";
+import { recheckRound } from "./recheck.server";
+import { draftRoundById } from "./rounds.server";
+import { createRun, parseRunRecord, reviseRun, type RunOrigin } from "./runs.server";
+import { InvalidInput } from "./types";
+
+/**
+ * The workspace's writes: each validates, writes in one transaction, then re-runs the checker
+ * over the round so the flags always describe what is stored.
+ */
+export async function addRun(db: Database, opts: { submissionId: string; roundId: string; input: unknown; origin: RunOrigin; userId: string }) {
+  await draftRoundById(db, opts.roundId);
+  const record = parseRunRecord(opts.input);
+  const out = await db.transaction((tx) => createRun(tx, { ...opts, record }));
+  await recheckRound(db, opts.roundId);
+  return out;
+}
+
+export async function editRun(db: Database, opts: { runId: string; roundId: string; input: unknown; origin: RunOrigin; userId: string; expectedVersion?: number }) {
+  await draftRoundById(db, opts.roundId);
+  const record = parseRunRecord(opts.input);
+  const out = await db.transaction((tx) => reviseRun(tx, { ...opts, record }));
+  await recheckRound(db, opts.roundId);
+  return out;
+}
+
+/** JSON text → record, with a clear message on a syntax error (position and what to fix). */
+export function parseJsonText(text: string): unknown {
+  try {
+    return JSON.parse(text);
+  } catch (e) {
+    const msg = e instanceof Error ? e.message : String(e);
+    const pos = /position (\d+)/.exec(msg);
+    let where = "file";
+    if (pos) {
+      const before = text.slice(0, Number(pos[1]));
+      where = `line ${before.split("\n").length}, column ${before.length - before.lastIndexOf("\n")}`;
+    }
+    throw new InvalidInput("The file is not valid JSON; nothing was stored.", [{ path: where, message: `${msg}. Check for a missing comma, quote or bracket.` }]);
+  }
+}
+
+export async function savedKeyMap(db: Database, submissionId: string): Promise<KeyMap | null> {
+  const [row] = await db.select({ map: namelistMaps.map }).from(namelistMaps).where(eq(namelistMaps.submissionId, submissionId));
+  return row?.map ?? null;
+}
+
+export async function saveKeyMap(db: Database, submissionId: string, map: KeyMap) {
+  await db
+    .insert(namelistMaps)
+    .values({ submissionId, map })
+    .onConflictDoUpdate({ target: namelistMaps.submissionId, set: { map, updatedAt: new Date() } });
+}
+
+/** A namelist import: the form's base fields, the namelist's values mapped over them. */
+export async function importNamelist(
+  db: Database,
+  opts: { submissionId: string; roundId: string; base: Record<string, unknown>; namelist: string; map: KeyMap; userId: string },
+) {
+  const mapped = namelistToRecord(opts.namelist, opts.map);
+  return addRun(db, { ...opts, input: mergeRecord(opts.base, mapped), origin: "namelist" });
+}
+
+export async function addClaim(db: Database, roundId: string, input: ClaimInput) {
+  await draftRoundById(db, roundId);
+  const row = await createClaim(db, roundId, input);
+  await recheckRound(db, roundId);
+  return row;
+}
+
+export async function changeClaim(db: Database, roundId: string, claimId: string, version: number, input: ClaimInput) {
+  await draftRoundById(db, roundId);
+  const row = await updateClaim(db, roundId, claimId, version, input);
+  await recheckRound(db, roundId);
+  return row;
+}
+
+export async function removeClaim(db: Database, roundId: string, claimId: string) {
+  await draftRoundById(db, roundId);
+  await deleteClaim(db, roundId, claimId);
+  await recheckRound(db, roundId);
+}

@@ -1,0 +1,40 @@
+/** Shapes the workspace's loaders hand to its components (shared, so components need no server import). */
+
+export type FlagView = {
+  id: string;
+  rule: string;
+  ruleTitle: string;
+  explanation: string;
+  severity: "mismatch" | "caution" | "note";
+  runLabel: string | null;
+  claimId: string | null;
+  claimTitle: string | null;
+  claimRow: number | null;
+  quantities: string[];
+  message: string;
+  expected: string | null;
+  found: string | null;
+  tolerance: string | null;
+  source: string;
+  authorAnswer: string | null;
+};
+
+export type RunRow = {
+  runId: string;
+  label: string;
+  version: number;
+  origin: string;
+  E: number | null;
+  Ra: number | null;
+  RaRotating: number | null;
+  Pr: number | null;
+  Pm: number | null;
+  Rm: number | null;
+  runLengthMagnetic: number | null;
+  mismatch: number;
+  caution: number;
+  note: number;
+};
+
+export type SeriesPlot = { columns: string[]; points: Record<string, { x: number; y: number }[]>; tStart: number; windowStart: number; tEnd: number; rows: number };
+export type SpectrumPlot = { columns: string[]; points: { l: number; [k: string]: number }[]; truncationDegree: number };

@@ -1,0 +1,45 @@
+import AxeBuilder from "@axe-core/playwright";
+import { expect, test, type Page } from "@playwright/test";
+import { fixture } from "./support/review";
+import { login } from "./support/session";
+
+// The review cycle's pages, checked with axe-core (WCAG rules as axe implements them).
+type Fx = { venueId: string; submissionId: string };
+let fx: Fx;
+test.beforeAll(() => {
+  fx = fixture<Fx>("make-decided-round.ts", `Accessible review ${Date.now()}`);
+});
+
+async function seriousViolations(page: Page) {
+  const results = await new AxeBuilder({ page }).analyze();
+  return results.violations
+    .filter((v) => v.impact === "serious" || v.impact === "critical")
+    .map((v) => `${v.id}: ${v.help} (${v.nodes.map((n) => n.target.join(" ")).join(", ")})`);
+}
+
+test("the editor's desk and round page", async ({ page }) => {
+  await login(page, "editor");
+  await page.goto(`/venues/${fx.venueId}/desk`);
+  await expect(page.getByRole("heading", { level: 1 })).toBeVisible();
+  expect(await seriousViolations(page)).toEqual([]);
+  await page.goto(`/venues/${fx.venueId}/desk/${fx.submissionId}/rounds/1`);
+  await expect(page.getByTestId("audit-log")).toBeVisible();
+  expect(await seriousViolations(page)).toEqual([]);
+});
+
+test("the reviewer's workspace", async ({ page }) => {
+  await login(page, "reviewer1");
+  await page.goto(`/review/${fx.submissionId}/rounds/1`);
+  await expect(page.getByTestId("flag").first()).toBeVisible();
+  expect(await seriousViolations(page)).toEqual([]);
+});
+
+test("the authors' decision and changes pages", async ({ page }) => {
+  await login(page, "author");
+  await page.goto(`/venues/${fx.venueId}/submissions/${fx.submissionId}/rounds/1/decision`);
+  await expect(page.getByTestId("released-remark").first()).toBeVisible();
+  expect(await seriousViolations(page)).toEqual([]);
+  await page.goto(`/venues/${fx.venueId}/submissions/${fx.submissionId}/rounds/2/changes`);
+  await expect(page.getByTestId("flags-diff-counts")).toBeVisible();
+  expect(await seriousViolations(page)).toEqual([]);
+});
