@@ -67,9 +67,14 @@ async function review(browser: Browser, key: "reviewer1" | "reviewer2", marker: 
   await expect(page.getByTestId("remark-edit-form")).toHaveCount(0);
   const flagOption = await anchor.locator("option", { hasText: "A.pm-from-diffusivities" }).getAttribute("value");
   await anchor.selectOption(flagOption!);
-  await writeInEditor(page, "remark-editor", `${marker} flag remark: Pm is nu over eta.`);
+  // Inline maths: "$…$" becomes a TeX mark as it is typed, stored as TeX text.
+  const editor = page.getByTestId("remark-editor");
+  await editor.click();
+  await page.keyboard.type(`${marker} flag remark: Pm is $\\nu/\\eta$ here.`);
+  await expect(editor.locator("code.tex")).toHaveText("\\nu/\\eta");
   await page.getByRole("button", { name: "Save remark" }).click();
   await expect(page.getByTestId("my-remarks")).toContainText(`${marker} flag remark`);
+  await expect(page.getByTestId("my-remarks").locator("code.tex")).toHaveText("\\nu/\\eta");
 
   await page.getByTestId("report-form").getByRole("combobox").selectOption("major-revision");
   await writeInEditor(page, "note-editor", `${marker} confidential note for the editor.`);

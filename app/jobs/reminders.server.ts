@@ -1,6 +1,6 @@
 import { and, eq, gt, isNotNull, lte } from "drizzle-orm";
 import type { Database } from "~db/client";
-import { reviews, rounds, submissions, user, venues } from "~db/schema";
+import { invitations, reviews, rounds, submissions, user, venues } from "~db/schema";
 import { env } from "~/config/env.server";
 import { compose } from "~/mail/compose";
 import { enqueueMail } from "~/mail/outbox.server";
@@ -14,6 +14,8 @@ const SOON_MS = 3 * 86_400_000;
  * often the job runs, each reminder is sent once.
  */
 export async function sendReminders(db: Database, now = new Date()) {
+  // Links nobody used before they expired: the desk shows them as expired, not pending.
+  await db.update(invitations).set({ state: "expired" }).where(and(eq(invitations.state, "pending"), lte(invitations.tokenExpiresAt, now)));
   const open = await db
     .select({ id: reviews.id, number: reviews.number, dueAt: reviews.dueAt, email: user.email, name: user.name, roundNumber: rounds.number, submissionId: submissions.id, title: submissions.title, venueId: venues.id, venueName: venues.name })
     .from(reviews)

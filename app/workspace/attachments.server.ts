@@ -58,7 +58,8 @@ export async function attachCsv(db: Database, opts: AttachOptions): Promise<{ at
           );
         }
         hash.update(value);
-        if (!toStorage.write(value)) await new Promise((res) => toStorage.once("drain", res));
+        // "close" too: after a failure the stream is destroyed and will never drain.
+        if (!toStorage.write(value)) await new Promise((res) => (toStorage.once("drain", res), toStorage.once("close", res)));
         yield value;
       }
     } finally {

@@ -5,15 +5,20 @@ import { releaseDecision } from "~/review/decisions.server";
 import { StateConflict } from "~/workspace/types";
 import { makeSentRound } from "../../e2e/support/make-sent-round";
 import { testDatabase } from "../support/test-db";
+import { dropQueuedMail } from "./outbox-cleanup";
 
 const { db, sql } = testDatabase();
-afterAll(() => sql.end({ timeout: 5 }));
+const title = `Concurrency ${Date.now()}`;
+afterAll(async () => {
+  await dropQueuedMail(db, title);
+  await sql.end({ timeout: 5 });
+});
 
 const letter = (text: string) => ({ type: "doc", content: [{ type: "paragraph", content: [{ type: "text", text }] }] });
 
 describe("releasing a decision", () => {
   it("lets exactly one of two simultaneous releases through; the other gets a clear conflict", async () => {
-    const fx = await makeSentRound(db, `Concurrency ${Date.now()}`);
+    const fx = await makeSentRound(db, title);
     const [round] = await db.select().from(rounds).where(eq(rounds.id, fx.roundId));
     const [editor] = await db.select({ userId: venueMembers.userId }).from(venueMembers).where(eq(venueMembers.venueId, fx.venueId));
     const attempt = (decision: "accept" | "reject") =>

@@ -9,9 +9,14 @@ import { packetFor } from "~/review/documents.server";
 import { reviewerView } from "~/review/workspace.server";
 import { makeSentRound } from "../../e2e/support/make-sent-round";
 import { testDatabase } from "../support/test-db";
+import { dropQueuedMail } from "./outbox-cleanup";
 
 const { db, sql } = testDatabase();
-afterAll(() => sql.end({ timeout: 5 }));
+const title = `Blinding towards reviewers ${Date.now()}`;
+afterAll(async () => {
+  await dropQueuedMail(db, title);
+  await sql.end({ timeout: 5 });
+});
 
 const author = demoPeople.find((p) => p.key === "author")!;
 
@@ -22,7 +27,7 @@ async function packetText(ctx: Awaited<ReturnType<typeof roundContext>>) {
 
 describe("blinding towards reviewers", () => {
   it("shows authors' names and affiliations to reviewers at a single-blind venue only", async () => {
-    const fx = await makeSentRound(db, `Blinding towards reviewers ${Date.now()}`);
+    const fx = await makeSentRound(db, title);
     const single = await roundContext(db, { roundId: fx.roundId });
     expect(single.venue.blinding).toBe("single");
     const open = await reviewerView(db, single, { id: randomUUID() });

@@ -5,15 +5,20 @@ import { sendReminders } from "~/jobs/reminders.server";
 import { inviteReviewer, respondToInvitation } from "~/review/invitations.server";
 import { makeSentRound } from "../../e2e/support/make-sent-round";
 import { testDatabase } from "../support/test-db";
+import { dropQueuedMail } from "./outbox-cleanup";
 import { demoPeople } from "~db/demo-data";
 import { newToken } from "~/review/tokens.server";
 
 const { db, sql } = testDatabase();
-afterAll(() => sql.end({ timeout: 5 }));
+const title = `Reminders ${Date.now()}`;
+afterAll(async () => {
+  await dropQueuedMail(db, title);
+  await sql.end({ timeout: 5 });
+});
 
 describe("reminder job", () => {
   it("sends one reminder however often it runs, and one overdue notice after the due date", async () => {
-    const fx = await makeSentRound(db, `Reminders ${Date.now()}`);
+    const fx = await makeSentRound(db, title);
     const reviewerEmail = demoPeople.find((p) => p.key === "reviewer2")!.email;
     const [reviewer] = await db.select().from(user).where(eq(user.email, reviewerEmail));
     const [editor] = await db.select().from(user).where(eq(user.email, demoPeople.find((p) => p.key === "editor")!.email));

@@ -1,4 +1,4 @@
-import { Mark, mergeAttributes, type Extensions } from "@tiptap/core";
+import { Mark, markInputRule, markPasteRule, mergeAttributes, type Extensions } from "@tiptap/core";
 import StarterKit from "@tiptap/starter-kit";
 
 /**
@@ -11,6 +11,13 @@ export const Tex = Mark.create({
   code: true,
   parseHTML: () => [{ tag: "code.tex" }],
   renderHTML: ({ HTMLAttributes }) => ["code", mergeAttributes(HTMLAttributes, { class: "tex" }), 0],
+  // Typing or pasting $…$ turns the text between the dollars into TeX.
+  addInputRules() {
+    return [markInputRule({ find: /(?:^|\s)(\$([^$\s][^$]*)\$)$/, type: this.type })];
+  },
+  addPasteRules() {
+    return [markPasteRule({ find: /(?:^|\s)(\$([^$\s][^$]*)\$)/g, type: this.type })];
+  },
 });
 
 /**
