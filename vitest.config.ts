@@ -14,5 +14,7 @@ export default defineConfig({
     setupFiles: ["unit/setup.ts"],
     testTimeout: 20_000,
     fileParallelism: false,
+    // Tests drive delivery themselves; a background job runner in the test process would race them.
+    env: { OUTBOX_WORKER: "false" },
   },
 });

@@ -26,6 +26,9 @@ async function caughtSubjects() {
 }
 
 beforeAll(async () => {
+  // The test database's queue may hold mail left by other suites; this test counts deliveries,
+  // so it starts from an empty queue (testDatabase() only ever opens a *_test database).
+  await db.delete(outbox).where(eq(outbox.state, "queued"));
   await db.delete(outbox).where(like(outbox.subject, "%outbox-test-%"));
 });
 afterAll(async () => {
