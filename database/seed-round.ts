@@ -7,7 +7,7 @@ import { eq } from "drizzle-orm";
 import { parseCsv } from "../app/checker/csv";
 import { runSchema } from "../app/checker/schema";
 import type { Env } from "../app/config/env-schema";
-import { createS3Storage } from "../app/storage/s3";
+import { createS3Storage, s3SettingsFromEnv } from "../app/storage/s3";
 import { createClaim } from "../app/workspace/claims.server";
 import { recheckRound } from "../app/workspace/recheck.server";
 import { createRun } from "../app/workspace/runs.server";
@@ -26,14 +26,7 @@ export async function seedDemoRound(tx: Tx, env: Env, opts: { submissionId: stri
   const [existing] = await tx.select({ runId: roundRuns.runId }).from(roundRuns).where(eq(roundRuns.roundId, roundId)).limit(1);
   if (existing) return { roundId, created: false };
 
-  const storage = createS3Storage({
-    endpoint: env.S3_ENDPOINT,
-    region: env.S3_REGION,
-    bucket: env.S3_BUCKET,
-    accessKeyId: env.S3_ACCESS_KEY_ID,
-    secretAccessKey: env.S3_SECRET_ACCESS_KEY,
-    forcePathStyle: env.S3_FORCE_PATH_STYLE,
-  });
+  const storage = createS3Storage(s3SettingsFromEnv(env));
   for (const input of demoRuns) {
     const record = runSchema.parse(input);
     const { version } = await createRun(tx, { submissionId: opts.submissionId, roundId, record, origin: "seed", userId: opts.authorId });

@@ -19,6 +19,25 @@ export type ObjectStorage = {
   remove(key: string): Promise<void>;
 };
 
+/** The S3 settings of a validated configuration (server and seed read the same variables). */
+export function s3SettingsFromEnv(env: {
+  S3_ENDPOINT: string;
+  S3_REGION: string;
+  S3_BUCKET: string;
+  S3_ACCESS_KEY_ID: string;
+  S3_SECRET_ACCESS_KEY: string;
+  S3_FORCE_PATH_STYLE: boolean;
+}): S3Settings {
+  return {
+    endpoint: env.S3_ENDPOINT,
+    region: env.S3_REGION,
+    bucket: env.S3_BUCKET,
+    accessKeyId: env.S3_ACCESS_KEY_ID,
+    secretAccessKey: env.S3_SECRET_ACCESS_KEY,
+    forcePathStyle: env.S3_FORCE_PATH_STYLE,
+  };
+}
+
 export function createS3Storage(settings: S3Settings): ObjectStorage {
   const client = new S3Client({
     endpoint: settings.endpoint,
