@@ -12,6 +12,7 @@ import { RunsTable } from "~/components/workspace/runs-table";
 import { asActionError, reviewerRound } from "~/review/access.server";
 import { RECOMMENDATIONS, remarkSchema, reportMetaSchema, verdictSchema } from "~/review/forms";
 import { deleteRemark, saveRemark, saveReportMeta, setVerdict, submitReview } from "~/review/reviews.server";
+import { OPEN_STATES } from "~/review/states";
 import { reviewerView } from "~/review/workspace.server";
 import type { Route } from "./+types/workspace";
 
@@ -32,7 +33,10 @@ export async function loader(args: Route.LoaderArgs) {
 const bad = (error: string) => data({ ok: false as const, error }, { status: 400 });
 
 export async function action(args: Route.ActionArgs) {
-  const { db, user, review } = await reviewerRound(args);
+  const { db, user, review, ctx } = await reviewerRound(args);
+  if (!(OPEN_STATES as readonly string[]).includes(ctx.round.state)) {
+    return data({ ok: false as const, error: "The editor has decided on this round; the report can no longer change." }, { status: 409 });
+  }
   const form = await args.request.formData();
   const intent = String(form.get("intent"));
   try {
@@ -66,9 +70,11 @@ export async function action(args: Route.ActionArgs) {
   }
 }
 
+const isLocked = (d: Route.ComponentProps["loaderData"]) => d.review.state === "submitted" || !(OPEN_STATES as readonly string[]).includes(d.round.state);
+
 function ReportForm({ d }: { d: Route.ComponentProps["loaderData"] }) {
   const fetcher = useFetcher<{ ok: boolean; error?: string }>();
-  const locked = d.review.state === "submitted";
+  const locked = isLocked(d);
   return (
     <fetcher.Form method="post" className="flex flex-col gap-3" data-testid="report-form">
       <label className="flex flex-col gap-1">
@@ -92,7 +98,7 @@ function ReportForm({ d }: { d: Route.ComponentProps["loaderData"] }) {
 }
 
 export default function ReviewWorkspace({ loaderData: d }: Route.ComponentProps) {
-  const locked = d.review.state === "submitted";
+  const locked = isLocked(d);
   const [editing, setEditing] = useState<string | null>(null);
   const stopEditing = useCallback(() => setEditing(null), []);
   const anchors: AnchorOption[] = [
@@ -107,7 +113,7 @@ export default function ReviewWorkspace({ loaderData: d }: Route.ComponentProps)
       <h1 className="text-title">{d.submission.title}</h1>
       <p className="mt-1">
         Round {d.round.number} (frozen) ·{" "}
-        {locked ? <strong data-testid="report-locked">Report submitted and locked</strong> : "report in progress"} ·{" "}
+        {d.review.state === "submitted" ? <strong data-testid="report-locked">Report submitted and locked</strong> : locked ? <strong>The round was decided; this report stays as it is</strong> : "report in progress"} ·{" "}
         <a className="underline" href={`/venues/${d.venue.id}/desk/${d.submission.id}/rounds/${d.round.number}/packet.pdf`}>Packet (PDF)</a>
         {d.round.number > 1 ? <> · <a className="underline" href={`/venues/${d.venue.id}/submissions/${d.submission.id}/rounds/${d.round.number}/changes`}>Changes since round {d.round.number - 1}</a></> : null}
       </p>
