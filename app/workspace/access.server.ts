@@ -8,11 +8,13 @@ type Args = Parameters<typeof requireSubmissionAccess>[0];
 
 /**
  * The workspace's guard, called by every loader and action itself. Authors and co-authors see
- * everything of their submission; editors (and reviewers) only rounds that were sent — a draft
+ * everything of their submission; editors only rounds that were sent — a draft
  * is private to its authors, and to anyone else it looks like it does not exist (404).
  */
 export async function requireWorkspace(args: Args, submissionId: string, opts: { round?: string | number; write?: boolean } = {}) {
-  const roles = opts.write ? (["author", "co-author"] as const) : (["author", "co-author", "editor", "reviewer"] as const);
+  // Reviewers read a round through their own workspace (review/…), which checks that they hold a
+  // report on that round and applies the venue's blinding; the authors' pages are not theirs.
+  const roles = opts.write ? (["author", "co-author"] as const) : (["author", "co-author", "editor"] as const);
   const found = await requireSubmissionAccess(args, submissionId, [...roles]);
   // A URL naming the submission under another venue is as unknown as a wrong id.
   const venueParam = (args as { params?: { venueId?: string } }).params?.venueId;

@@ -6,13 +6,21 @@ import { requireWorkspace } from "~/workspace/access.server";
 import type { Route } from "./+types/round-layout";
 
 export async function loader(args: Route.LoaderArgs) {
-  const { db, round } = await requireWorkspace(args, args.params.submissionId, { round: args.params.round });
+  const { db, round, isAuthor } = await requireWorkspace(args, args.params.submissionId, { round: args.params.round });
   const counts = await db
     .select({ severity: flags.severity, n: sql<number>`count(*)::int` })
     .from(flags)
     .where(eq(flags.roundId, round!.id))
     .groupBy(flags.severity);
-  return { round: { number: round!.number, state: round!.state, checkedAt: round!.checkedAt?.toISOString() ?? null }, counts: Object.fromEntries(counts.map((c) => [c.severity, c.n])) as Record<string, number> };
+  return {
+    round: {
+      number: round!.number,
+      state: round!.state,
+      checkedAt: round!.checkedAt?.toISOString() ?? null,
+      // The decision page is the authors' view of a released decision.
+      showDecision: isAuthor && round!.releasedAt !== null,
+    },
+    counts: Object.fromEntries(counts.map((c) => [c.severity, c.n])) as Record<string, number> };
 }
 
 const tabClass = ({ isActive }: { isActive: boolean }) =>
@@ -45,6 +53,16 @@ export default function RoundLayout({ loaderData: d, params }: Route.ComponentPr
         <NavLink to={`${base}/files`} className={tabClass}>
           Files
         </NavLink>
+        {d.round.number > 1 ? (
+          <NavLink to={`${base}/changes`} className={tabClass}>
+            Changes since round {d.round.number - 1}
+          </NavLink>
+        ) : null}
+        {d.round.showDecision ? (
+          <NavLink to={`${base}/decision`} className={tabClass}>
+            Decision
+          </NavLink>
+        ) : null}
       </nav>
       <LiveRound submissionId={params.submissionId} round={d.round.number} loaded={d.round} />
       <div className="mt-4">
