@@ -6,7 +6,11 @@ import { attachments, roundRuns, storedFiles } from "~db/schema";
 import { CsvFormatError } from "~/checker/csv";
 import { parseCsvStream } from "~/checker/csv-stream";
 import { storage } from "~/storage/storage.server";
+import { queueRecheck } from "~/jobs/recheck.server";
 import { recheckRound } from "./recheck.server";
+
+/** Above this many rows the re-check leaves the request and runs as a queued job. */
+export const QUEUED_RECHECK_ROWS = 100_000;
 import { draftRoundById } from "./rounds.server";
 import { InvalidInput, PayloadTooLarge } from "./types";
 
@@ -113,6 +117,9 @@ export async function attachCsv(db: Database, opts: AttachOptions): Promise<{ at
     if (uploaded) await storage.remove(key).catch(() => {});
     throw e;
   }
-  await recheckRound(db, opts.roundId);
+  // Large series would hold the upload's request open for the whole re-check; the round page
+  // refreshes itself when the queued job has stored the new flags. Without a job runner, inline.
+  const queued = rowCount > QUEUED_RECHECK_ROWS && (await queueRecheck(opts.roundId));
+  if (!queued) await recheckRound(db, opts.roundId);
   return { attachmentId, rowCount, columns: names };
 }
