@@ -87,6 +87,9 @@ export function checkComparison(cc: ClaimContext): Flag[] {
     const b = comparable(other);
     for (const path of new Set([...a.keys(), ...b.keys()])) {
       if (same(a.get(path), b.get(path))) continue;
+      // Material properties are optional documentation of the controls: one run stating them and
+      // the other not is no physical difference (the controls are compared above); two stated values are.
+      if (path.startsWith("material.") && (a.get(path) === undefined || b.get(path) === undefined)) continue;
       changed.add(path);
       if (varies.some((v) => covers(v, path))) continue;
       const resolution = path.startsWith("resolution.");
