@@ -8,6 +8,8 @@ export const middleware: Route.MiddlewareFunction[] = [dbMiddleware];
 
 export const meta: Route.MetaFunction = () => [{ title: "Runproof" }];
 
+export const links: Route.LinksFunction = () => [{ rel: "icon", href: "/favicon.svg", type: "image/svg+xml" }];
+
 export function Layout({ children }: { children: React.ReactNode }) {
   return (
     <html lang="en">
