@@ -19,6 +19,7 @@ export const signUpSchema = z
     email,
     password,
     confirm: z.string({ error: "Repeat the password." }),
+    next: z.string().optional(),
   })
   .refine((v) => v.password === v.confirm, { path: ["confirm"], message: "The two passwords differ." });
 

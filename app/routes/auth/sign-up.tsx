@@ -1,9 +1,9 @@
 import { getFormProps, useForm } from "@conform-to/react";
 import { getZodConstraint, parseWithZod } from "@conform-to/zod/v4";
-import { data, Form, Link, redirect } from "react-router";
+import { data, Form, Link, redirect, useSearchParams } from "react-router";
 import { auth } from "~/auth/auth.server";
 import { authErrorOf } from "~/auth/cookies.server";
-import { signUpSchema } from "~/auth/forms";
+import { safeNext, signUpSchema } from "~/auth/forms";
 import { FormErrors, TextField } from "~/components/field";
 import type { Route } from "./+types/sign-up";
 
@@ -14,9 +14,10 @@ export async function action({ request }: Route.ActionArgs) {
   if (submission.status !== "success") {
     return data({ result: submission.reply({ hideFields: ["password", "confirm"] }) }, { status: 400 });
   }
-  const { name, email, password } = submission.value;
+  const { name, email, password, next } = submission.value;
   const res = await auth.api.signUpEmail({
-    body: { name, email, password, callbackURL: "/dashboard" },
+    // The confirmation link lands where the person was headed (e.g. a co-author invitation).
+    body: { name, email, password, callbackURL: safeNext(next) },
     headers: request.headers,
     asResponse: true,
   });
@@ -35,6 +36,7 @@ export async function action({ request }: Route.ActionArgs) {
 }
 
 export default function SignUp({ actionData }: Route.ComponentProps) {
+  const [params] = useSearchParams();
   const [form, fields] = useForm({
     lastResult: actionData?.result,
     constraint: getZodConstraint(signUpSchema),
@@ -48,6 +50,7 @@ export default function SignUp({ actionData }: Route.ComponentProps) {
         One account serves every role: editors and authors add you to venues and submissions.
       </p>
       <Form method="post" {...getFormProps(form)} className="mt-6 flex flex-col gap-4">
+        <input type="hidden" name="next" value={params.get("next") ?? ""} />
         <TextField meta={fields.name} label="Name" autoComplete="name" />
         <TextField meta={fields.email} label="E-mail" type="email" autoComplete="email" />
         <TextField meta={fields.password} label="Password" type="password" autoComplete="new-password" hint="At least 10 characters." />

@@ -39,7 +39,8 @@ export default function Join({ loaderData: d }: Route.ComponentProps) {
       ) : (
         <p className="mt-4">
           <Link to={`/sign-in?next=${encodeURIComponent(d.next)}`}>Sign in</Link> to join. No account yet?{" "}
-          <Link to="/sign-up">Create one</Link> with the address the invitation was sent to, confirm it, then open this link again.
+          <Link to={`/sign-up?next=${encodeURIComponent(d.next)}`}>Create one</Link> with the address the invitation was sent
+          to; the confirmation link brings you back here.
         </p>
       )}
     </main>
