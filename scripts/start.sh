@@ -27,6 +27,6 @@ node_modules/.bin/react-router build >/dev/null
 node_modules/.bin/tsx scripts/print-welcome.ts
 PORT="${PORT:-3000}" HOST=127.0.0.1 NODE_ENV=production node ./node_modules/@react-router/serve/bin.js build/server/index.js &
 server=$!
-trap 'kill $server 2>/dev/null || true; wait $server 2>/dev/null || true; stop_started' EXIT
-trap 'exit 130' INT TERM
-wait $server
+# A background job of a script ignores Ctrl-C, so the script passes INT and TERM on as one TERM.
+trap 'kill -TERM "$server" 2>/dev/null || true' INT TERM
+while kill -0 "$server" 2>/dev/null; do wait "$server" || true; done
