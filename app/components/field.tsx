@@ -8,8 +8,18 @@ type Props = {
   hint?: string;
 };
 
-/** A labelled input with its hint and errors wired for screen readers. */
-export function TextField({ meta, label, type = "text", autoComplete, hint }: Props) {
+/** Label, hint and error line around any control, wired for screen readers by the field's ids. */
+export function FieldFrame({
+  meta,
+  label,
+  hint,
+  children,
+}: {
+  meta: FieldMetadata<string | undefined>;
+  label: string;
+  hint?: string;
+  children: React.ReactNode;
+}) {
   return (
     <div className="flex flex-col gap-1">
       <label htmlFor={meta.id} className="font-semibold">
@@ -20,16 +30,20 @@ export function TextField({ meta, label, type = "text", autoComplete, hint }: Pr
           {hint}
         </p>
       ) : null}
-      <input
-        {...getInputProps(meta, { type })}
-        key={meta.key}
-        autoComplete={autoComplete}
-        className="field-input"
-      />
+      {children}
       <p id={meta.errorId} className="field-error" role={meta.errors ? "alert" : undefined}>
         {meta.errors?.join(" ")}
       </p>
     </div>
+  );
+}
+
+/** A labelled input with its hint and errors. */
+export function TextField({ meta, label, type = "text", autoComplete, hint }: Props) {
+  return (
+    <FieldFrame meta={meta} label={label} hint={hint}>
+      <input {...getInputProps(meta, { type })} key={meta.key} autoComplete={autoComplete} className="field-input" />
+    </FieldFrame>
   );
 }
 

@@ -1,5 +1,6 @@
 import type { FieldMetadata } from "@conform-to/react";
 import type { TextareaHTMLAttributes } from "react";
+import { FieldFrame } from "~/components/field";
 
 /** A labelled textarea in the same shape as TextField (hint and errors wired for screen readers). */
 export function TextArea({
@@ -17,19 +18,8 @@ export function TextArea({
 }) {
   const { key, ...props } = textarea;
   return (
-    <div className="flex flex-col gap-1">
-      <label htmlFor={meta.id} className="font-semibold">
-        {label}
-      </label>
-      {hint ? (
-        <p id={`${meta.id}-hint`} className="text-caption text-basalt-soft">
-          {hint}
-        </p>
-      ) : null}
+    <FieldFrame meta={meta} label={label} hint={hint}>
       <textarea key={key} {...props} rows={rows} className="field-input" />
-      <p id={meta.errorId} className="field-error" role={meta.errors ? "alert" : undefined}>
-        {meta.errors?.join(" ")}
-      </p>
-    </div>
+    </FieldFrame>
   );
 }
