@@ -1,4 +1,5 @@
 import { z } from "zod";
+import { OUTCOME_CHOICES } from "./labels";
 
 /** Shared (client and server) schemas of the review cycle's forms. */
 const jsonDoc = z
@@ -54,9 +55,5 @@ export const responseSchema = z.object({
   response: z.string().trim().min(1, "Write your answer to the remark.").max(20_000),
 });
 
-export const RECOMMENDATIONS = [
-  { value: "accept", label: "Accept" },
-  { value: "minor-revision", label: "Minor revision" },
-  { value: "major-revision", label: "Major revision" },
-  { value: "reject", label: "Reject" },
-] as const;
+/** The decision and recommendation choices, worded by the one labels module. */
+export const RECOMMENDATIONS = OUTCOME_CHOICES;

@@ -4,6 +4,7 @@ import { openVenues } from "~/workspace/submissions.server";
 import { dashboardFor, type DashboardItem } from "~/dashboard/queries.server";
 import { myDecisions, myReviews } from "~/review/dashboard.server";
 import type { Route } from "./+types/dashboard";
+import { decisionLabel, submissionStageLabel } from "~/review/labels";
 
 export const meta: Route.MetaFunction = () => [{ title: "What needs me · Runproof" }];
 
@@ -12,14 +13,6 @@ export async function loader(args: Route.LoaderArgs) {
   const [lists, reviews, venuesOpen, decisions] = await Promise.all([dashboardFor(db, user.id), myReviews(db, user.id), openVenues(db), myDecisions(db, user.id)]);
   return { name: user.name, admin: user.role === "admin", ...lists, reviews, venuesOpen, decisions };
 }
-
-const stageLabel: Record<string, string> = {
-  draft: "draft, not yet sent",
-  "with-editor": "waiting for the editor",
-  "in-review": "with reviewers",
-  decided: "decided",
-  withdrawn: "withdrawn",
-};
 
 function Section({ title, items, empty, testId }: { title: string; items: DashboardItem[]; empty: string; testId: string }) {
   return (
@@ -37,7 +30,7 @@ function Section({ title, items, empty, testId }: { title: string; items: Dashbo
                 {s.title}
               </Link>
               <span className="ml-2 text-caption text-basalt-soft">
-                {s.venueName} · {stageLabel[s.stage] ?? s.stage}
+                {s.venueName} · {submissionStageLabel(s.stage)}
               </span>
             </li>
           ))}
@@ -108,7 +101,7 @@ export default function Dashboard({ loaderData: d }: Route.ComponentProps) {
             <ul className="mt-2 divide-y divide-rule">
               {d.decisions.map((r) => (
                 <li key={r.roundId} className="py-1">
-                  <a className="underline" href={r.href}>{r.title}, round {r.round}: {r.decision}</a>
+                  <a className="underline" href={r.href}>{r.title}, round {r.round}: {decisionLabel(r.decision)}</a>
                   <span className="ml-2 text-caption text-basalt-soft">released {r.releasedAt}</span>
                 </li>
               ))}

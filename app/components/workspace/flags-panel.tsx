@@ -2,6 +2,7 @@ import { useMemo, useState } from "react";
 import { Link, useFetcher } from "react-router";
 import { AdvisoryNote } from "~/components/advisory-note";
 import type { FlagView } from "~/workspace/views";
+import { severityLabel } from "~/review/labels";
 
 type Props = {
   flags: FlagView[];
@@ -80,7 +81,7 @@ export function FlagsPanel({ flags, runLabels, claims, runHref, claimHref, answe
       </h3>
       <AdvisoryNote className="mt-2" />
       <div className="mt-3 flex flex-wrap gap-3" role="group" aria-label="Filter the flags">
-        {select("severity", "Severity", ["mismatch", "caution", "note"].map((s) => ({ value: s, label: s })))}
+        {select("severity", "Severity", ["mismatch", "caution", "note"].map((s) => ({ value: s, label: severityLabel(s) })))}
         {select("rule", "Rule", rulesSeen.map((r) => ({ value: r, label: r })))}
         {select("run", "Run", runLabels.map((r) => ({ value: r, label: r })))}
         {select("claim", "Claim", claims.map((c) => ({ value: c.id, label: c.title })))}
@@ -94,7 +95,7 @@ export function FlagsPanel({ flags, runLabels, claims, runHref, claimHref, answe
             return (
               <li key={f.id} className="card" data-testid="flag" data-rule={f.rule} data-severity={f.severity} data-flag-id={f.id}>
                 <div className="flex flex-wrap items-baseline gap-2">
-                  <span className={`rounded border px-1.5 text-caption font-semibold ${tone[f.severity]}`}>{f.severity}</span>
+                  <span className={`rounded border px-1.5 text-caption font-semibold ${tone[f.severity]}`}>{severityLabel(f.severity)}</span>
                   <span className="font-semibold">{f.ruleTitle}</span>
                   <code className="text-caption text-basalt-soft">{f.rule}</code>
                   {f.runLabel ? (

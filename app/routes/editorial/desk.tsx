@@ -8,6 +8,7 @@ import { deskQueue } from "~/review/desk.server";
 import { QUEUE_GROUPS } from "~/review/states";
 import { parsePolicyForm, POLICY_FIELDS } from "~/review/policy-form";
 import type { Route } from "./+types/desk";
+import { decisionLabel } from "~/review/labels";
 
 export const meta: Route.MetaFunction = () => [{ title: "Editor's desk · Runproof" }];
 
@@ -54,7 +55,7 @@ export default function Desk({ loaderData, actionData }: Route.ComponentProps) {
                     </p>
                     <p className="text-caption text-basalt-soft">
                       Reviews: {q.invited} invited, {q.reviewing} in progress, {q.submitted} submitted
-                      {q.decision ? ` · decision: ${q.decision}` : ""}
+                      {q.decision ? ` · decision: ${decisionLabel(q.decision)}` : ""}
                     </p>
                   </li>
                 ))}

@@ -9,6 +9,7 @@ import { releasedRemarks, responsesTo } from "~/review/remarks.server";
 import { saveRemarkResponse } from "~/review/revision.server";
 import { renderRichText } from "~/review/tiptap/render.server";
 import type { Route } from "./+types/decision";
+import { decisionLabel, roundStateLabel } from "~/review/labels";
 
 export const meta: Route.MetaFunction = () => [{ title: "Decision · Runproof" }];
 
@@ -67,11 +68,11 @@ export default function Decision({ loaderData: d }: Route.ComponentProps) {
   return (
     <main className="mx-auto max-w-4xl p-gutter">
       <p className="text-caption">{d.venue.name}</p>
-      <h1 className="text-title">Decision on round {d.round.number}: {d.round.decision}</h1>
+      <h1 className="text-title">Decision on round {d.round.number}: {decisionLabel(d.round.decision)}</h1>
       <p className="mt-1">{d.submission.title} · released {d.round.releasedAt} · <a className="underline" href={`${base}/${d.round.number}/letter.pdf`}>Letter as PDF</a></p>
       {d.next ? (
         <p className="mt-2 rounded bg-lichen-wash p-2">
-          Round {d.next.number} is {d.next.state === "draft" ? "open for your revision" : d.next.state}:{" "}
+          Round {d.next.number} is {d.next.state === "draft" ? "open for your revision" : roundStateLabel(d.next.state).toLowerCase()}:{" "}
           <Link className="underline" to={`${base}/${d.next.number}`}>open round {d.next.number}</Link> ·{" "}
           <Link className="underline" to={`${base}/${d.next.number}/changes`}>changes since round {d.round.number}</Link>
         </p>

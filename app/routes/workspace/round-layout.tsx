@@ -4,6 +4,7 @@ import { flags } from "~db/schema";
 import { LiveRound } from "~/components/workspace/live-round";
 import { requireWorkspace } from "~/workspace/access.server";
 import type { Route } from "./+types/round-layout";
+import { roundStateLabel } from "~/review/labels";
 
 export async function loader(args: Route.LoaderArgs) {
   const { db, round, isAuthor } = await requireWorkspace(args, args.params.submissionId, { round: args.params.round });
@@ -33,7 +34,7 @@ export default function RoundLayout({ loaderData: d, params }: Route.ComponentPr
       <div className="flex flex-wrap items-baseline gap-3">
         <h2 className="text-lead">Round {d.round.number}</h2>
         <span className="text-caption text-basalt-soft" data-testid="round-state">
-          {d.round.state === "draft" ? "draft — private to the authors" : `sent (${d.round.state}) — frozen`}
+          {d.round.state === "draft" ? "draft — private to the authors" : `${roundStateLabel(d.round.state)} — frozen`}
         </span>
         <span className="text-caption">
           <span className="text-ember">{d.counts.mismatch ?? 0} mismatch</span> · <span className="text-amber">{d.counts.caution ?? 0} caution</span> ·{" "}

@@ -2,6 +2,7 @@ import { data, Link, NavLink, Outlet } from "react-router";
 import { requireWorkspace } from "~/workspace/access.server";
 import { submissionHeader } from "~/workspace/submissions.server";
 import type { Route } from "./+types/submission-layout";
+import { roundStateLabel } from "~/review/labels";
 
 export async function loader(args: Route.LoaderArgs) {
   const { db, submission, isAuthor } = await requireWorkspace(args, args.params.submissionId);
@@ -11,14 +12,6 @@ export async function loader(args: Route.LoaderArgs) {
   const rounds = header.rounds.filter((r) => isAuthor || r.state !== "draft");
   return { ...header, rounds, isAuthor };
 }
-
-const stateLabel: Record<string, string> = {
-  draft: "draft",
-  sent: "with the editor",
-  "under-review": "with reviewers",
-  "reviews-in": "reviews in",
-  decided: "decided",
-};
 
 export default function SubmissionLayout({ loaderData: d, params }: Route.ComponentProps) {
   const base = `/venues/${params.venueId}/submissions/${params.submissionId}`;
@@ -30,7 +23,7 @@ export default function SubmissionLayout({ loaderData: d, params }: Route.Compon
         <nav aria-label="Rounds" className="mt-2 flex flex-wrap items-center gap-3 text-caption">
           {d.rounds.map((r) => (
             <NavLink key={r.number} to={`${base}/rounds/${r.number}`} className={({ isActive }) => (isActive ? "font-semibold underline" : "")}>
-              Round {r.number} · {stateLabel[r.state] ?? r.state}
+              Round {r.number} · {roundStateLabel(r.state)}
             </NavLink>
           ))}
           {d.isAuthor ? (
