@@ -6,8 +6,9 @@ import { compose } from "~/mail/compose";
 import { enqueueMail } from "~/mail/outbox.server";
 import { audit } from "~/workspace/audit.server";
 import { InvalidInput, StateConflict, type Db } from "~/workspace/types";
-import { listedPeople, roundContext, venueEditors } from "./context.server";
+import { listedPeople, roundContext, venueEditors, type RoundContext } from "./context.server";
 import { calendarAttachment, reviewDueCalendar } from "./ical";
+import { invitationStateLabel } from "./labels";
 import { hashToken, newToken } from "./tokens.server";
 
 const LINK_DAYS = 14;
@@ -25,8 +26,40 @@ export async function conflictCheck(db: Db, submissionId: string, email: string)
   const [person] = await db.select({ affiliation: user.affiliation }).from(user).where(sql`lower(${user.email}) = ${norm(email)}`);
   const aff = norm(person?.affiliation);
   const shared = aff ? listed.filter((p) => norm(p.affiliation) === aff) : [];
-  const warnings = shared.length ? [`Shares the affiliation "${person!.affiliation}" with ${shared.map((p) => p.name).join(", ")}.`] : [];
+  // A person can be both a member and a listed contributor: name each one once.
+  const names = [...new Map(shared.map((p) => [norm(p.email) || norm(p.name), p.name])).values()];
+  const warnings = names.length ? [`Shares the affiliation "${person!.affiliation}" with ${names.join(", ")}.`] : [];
   return { blocked: null, warnings };
+}
+
+/**
+ * The reviewer's own page of a round: a stable address that asks to sign in, so it still works
+ * after the one-time invitation link has been used.
+ */
+export function reviewPageUrl(ctx: Pick<RoundContext, "venue" | "submission" | "round">) {
+  return `${env.APP_URL}/venues/${ctx.venue.id}/submissions/${ctx.submission.id}/rounds/${ctx.round.number}/review`;
+}
+
+function invitationCalendar(ctx: RoundContext, invitationId: string, dueAt: Date) {
+  return reviewDueCalendar({ uid: invitationId, title: ctx.submission.title, dueAt, url: reviewPageUrl(ctx), venueName: ctx.venue.name });
+}
+
+function invitationMessage(ctx: RoundContext, inv: { id: string; dueAt: Date; token: string; name: string | null }, again = false) {
+  const link = `${env.APP_URL}/invitations/${inv.token}`;
+  const due = inv.dueAt.toISOString().slice(0, 10);
+  return compose({
+    subject: `${again ? "Reminder: i" : "I"}nvitation to review "${ctx.submission.title}" for ${ctx.venue.name}`,
+    greeting: `Hello${inv.name ? ` ${inv.name}` : ""},`,
+    paragraphs: [
+      `The editor of ${ctx.venue.name} asks whether you would review round ${ctx.round.number} of "${ctx.submission.title}".`,
+      ...(again ? ["This mail replaces the earlier invitation: its links no longer work, use these."] : []),
+      `The review would be due on ${due}; the attached calendar entry carries the date and the address of your review page.`,
+      `Accept: ${link}?answer=accept`,
+      `Decline: ${link}?answer=decline`,
+      `Each link works once and expires in ${LINK_DAYS} days.`,
+    ],
+    action: { label: "Answer the invitation", url: link },
+  });
 }
 
 /** Invites one person to review a sent round: the invitation, the audit entry and the mail together. */
@@ -60,22 +93,10 @@ export async function inviteReviewer(db: Database, opts: { roundId: string; emai
     if (ctx.round.state === "sent") await tx.update(rounds).set({ state: "under-review" }).where(eq(rounds.id, opts.roundId));
     await tx.update(submissions).set({ stage: "in-review", updatedAt: new Date() }).where(eq(submissions.id, ctx.submission.id));
     await audit(tx, ctx.submission.id, opts.editorId, "reviewer.invited", { round: ctx.round.number, email });
-    const link = `${env.APP_URL}/invitations/${token}`;
-    const due = opts.dueAt.toISOString().slice(0, 10);
-    const ics = reviewDueCalendar({ uid: inv!.id, title: ctx.submission.title, dueAt: opts.dueAt, url: link, venueName: ctx.venue.name });
-    const message = compose({
-      subject: `Invitation to review "${ctx.submission.title}" for ${ctx.venue.name}`,
-      greeting: `Hello${account ? ` ${account.name}` : ""},`,
-      paragraphs: [
-        `The editor of ${ctx.venue.name} asks whether you would review round ${ctx.round.number} of "${ctx.submission.title}".`,
-        `The review would be due on ${due}; the attached calendar entry carries the date.`,
-        `Accept: ${link}?answer=accept`,
-        `Decline: ${link}?answer=decline`,
-        `Each link works once and expires in ${LINK_DAYS} days.`,
-      ],
-      action: { label: "Answer the invitation", url: link },
+    await enqueueMail(tx, email, invitationMessage(ctx, { id: inv!.id, dueAt: opts.dueAt, token, name: account?.name ?? null }), {
+      attachments: [calendarAttachment(invitationCalendar(ctx, inv!.id, opts.dueAt))],
+      dedupeKey: `invite:${inv!.id}`,
     });
-    await enqueueMail(tx, email, message, { attachments: [calendarAttachment(ics)], dedupeKey: `invite:${inv!.id}` });
     return inv!;
   });
 }
@@ -83,8 +104,11 @@ export async function inviteReviewer(db: Database, opts: { roundId: string; emai
 /** The invitation a link points at, if the link is still good (pending and not expired). */
 export async function invitationByToken(db: Db, token: string) {
   const [inv] = await db.select().from(invitations).where(eq(invitations.tokenHash, hashToken(token)));
-  if (!inv) return { inv: null, problem: "This invitation link is not valid." };
-  if (inv.state !== "pending") return { inv, problem: `This invitation link was already used (the invitation is ${inv.state}).` };
+  if (!inv) return { inv: null, problem: "This invitation link is not valid. If the editor sent you the invitation again, use the link in the most recent mail." };
+  if (inv.state === "withdrawn") return { inv, problem: "The editor withdrew this invitation, so there is nothing left to answer. Thank you all the same." };
+  if (inv.state === "accepted") return { inv, problem: "You already accepted this invitation: sign in and open your review from the dashboard." };
+  if (inv.state === "declined") return { inv, problem: "You already declined this invitation." };
+  if (inv.state !== "pending") return { inv, problem: `This invitation is ${invitationStateLabel(inv.state).toLowerCase()}; ask the editor for a new one.` };
   if (inv.tokenExpiresAt.getTime() < Date.now()) return { inv, problem: "This invitation link has expired; ask the editor for a new one." };
   return { inv, problem: null };
 }
@@ -153,4 +177,60 @@ export async function reinvitePrevious(db: Database, opts: { roundId: string; du
     invited.push(r.email);
   }
   return invited;
+}
+
+/** A pending invitation of this round, locked for the change; anything else is a clear conflict. */
+async function pendingInvitation(tx: Db, roundId: string, invitationId: string, doing: string) {
+  const [inv] = await tx.select().from(invitations).where(and(eq(invitations.id, invitationId), eq(invitations.roundId, roundId))).for("update");
+  if (!inv) throw new InvalidInput("No such invitation in this round.", [{ path: "invitationId", message: "Reload the page: the invitation is not in this round." }]);
+  if (inv.state !== "pending") throw new StateConflict(`Only an invitation awaiting an answer can be ${doing}; this one is ${invitationStateLabel(inv.state).toLowerCase()}.`);
+  return inv;
+}
+
+/**
+ * Sends a pending invitation again with a fresh link (the old link stops working) and a fresh
+ * expiry; the due date stays unless a new one is given. Invitation, audit entry and mail commit together.
+ */
+export async function resendInvitation(db: Database, opts: { roundId: string; invitationId: string; editorId: string; dueAt?: Date }) {
+  const ctx = await roundContext(db, { roundId: opts.roundId });
+  if (!OPEN_STATES.includes(ctx.round.state as never)) throw new StateConflict(`Round ${ctx.round.number} is decided; its invitations can no longer be sent.`);
+  if (opts.dueAt && opts.dueAt.getTime() <= Date.now()) throw new InvalidInput("The due date is in the past.", [{ path: "dueAt", message: "Choose a date after today." }]);
+  const { token, hash } = newToken();
+  return db.transaction(async (tx) => {
+    const inv = await pendingInvitation(tx, opts.roundId, opts.invitationId, "sent again");
+    const dueAt = opts.dueAt ?? inv.dueAt;
+    const [updated] = await tx
+      .update(invitations)
+      .set({ tokenHash: hash, tokenExpiresAt: new Date(Date.now() + LINK_DAYS * 86_400_000), dueAt })
+      .where(eq(invitations.id, inv.id))
+      .returning();
+    const [account] = await tx.select({ name: user.name }).from(user).where(sql`lower(${user.email}) = ${inv.email}`);
+    await audit(tx, ctx.submission.id, opts.editorId, "invitation.resent", { round: ctx.round.number, email: inv.email });
+    await enqueueMail(tx, inv.email, invitationMessage(ctx, { id: inv.id, dueAt, token, name: account?.name ?? null }, true), {
+      attachments: [calendarAttachment(invitationCalendar(ctx, inv.id, dueAt))],
+      dedupeKey: `invite:${inv.id}:${hash.slice(0, 16)}`,
+    });
+    return updated!;
+  });
+}
+
+/** Withdraws a pending invitation: its link then says so, and the person is told by mail. */
+export async function withdrawInvitation(db: Database, opts: { roundId: string; invitationId: string; editorId: string }) {
+  const ctx = await roundContext(db, { roundId: opts.roundId });
+  return db.transaction(async (tx) => {
+    const inv = await pendingInvitation(tx, opts.roundId, opts.invitationId, "withdrawn");
+    const [updated] = await tx.update(invitations).set({ state: "withdrawn", respondedAt: new Date() }).where(eq(invitations.id, inv.id)).returning();
+    await audit(tx, ctx.submission.id, opts.editorId, "invitation.withdrawn", { round: ctx.round.number, email: inv.email });
+    await enqueueMail(
+      tx,
+      inv.email,
+      compose({
+        subject: `Invitation withdrawn: "${ctx.submission.title}"`,
+        greeting: "Hello,",
+        paragraphs: [`The editor of ${ctx.venue.name} withdrew the invitation to review round ${ctx.round.number} of "${ctx.submission.title}". You need not do anything; the earlier links no longer work.`],
+      }),
+      { dedupeKey: `invite-withdrawn:${inv.id}` },
+    );
+    return updated!;
+  });
 }
