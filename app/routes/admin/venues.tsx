@@ -80,6 +80,7 @@ export default function AdminVenues({ loaderData, actionData }: Route.ComponentP
                 <td className="py-2">
                   {v.name}
                   <div className="font-mono text-basalt-soft">{v.slug}</div>
+                  <a className="underline" href={`/venues/${v.id}/desk#policy-h`}>Checker policy</a>
                 </td>
                 <td>{v.blinding === "double" ? "double-blind" : "single-blind"}</td>
                 <td>
