@@ -8,7 +8,7 @@ import { audit } from "~/workspace/audit.server";
 import { InvalidInput, StateConflict, type Db } from "~/workspace/types";
 import { listedPeople, roundContext, venueEditors, type RoundContext } from "./context.server";
 import { calendarAttachment, reviewDueCalendar } from "./ical";
-import { invitationStateLabel } from "./labels";
+import { invitationStateLabel, roundStateLabel } from "./labels";
 import { hashToken, newToken } from "./tokens.server";
 
 const LINK_DAYS = 14;
@@ -65,7 +65,7 @@ function invitationMessage(ctx: RoundContext, inv: { id: string; dueAt: Date; to
 /** Invites one person to review a sent round: the invitation, the audit entry and the mail together. */
 export async function inviteReviewer(db: Database, opts: { roundId: string; email: string; dueAt: Date; editorId: string }) {
   const ctx = await roundContext(db, { roundId: opts.roundId });
-  if (!OPEN_STATES.includes(ctx.round.state as never)) throw new StateConflict(`Round ${ctx.round.number} is ${ctx.round.state}; reviewers can be invited only to a sent round that is not decided.`);
+  if (!OPEN_STATES.includes(ctx.round.state as never)) throw new StateConflict(`Round ${ctx.round.number} is ${roundStateLabel(ctx.round.state).toLowerCase()}; reviewers can be invited only to a sent round that is not decided.`);
   if (opts.dueAt.getTime() <= Date.now()) throw new InvalidInput("The due date is in the past.", [{ path: "dueAt", message: "Choose a date after today." }]);
   const email = norm(opts.email);
   const { blocked } = await conflictCheck(db, ctx.submission.id, email);

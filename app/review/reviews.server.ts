@@ -7,6 +7,7 @@ import { enqueueMail } from "~/mail/outbox.server";
 import { audit } from "~/workspace/audit.server";
 import { InvalidInput, StateConflict, type Db } from "~/workspace/types";
 import { roundContext, venueEditors } from "./context.server";
+import { recommendationLabel } from "./labels";
 import type { RemarkInput } from "./forms";
 import { isEmptyDoc } from "./tiptap/extensions";
 
@@ -93,7 +94,7 @@ export async function submitReview(db: Database, review: typeof reviews.$inferSe
         compose({
           subject: `Review submitted: ${ctx.submission.title}`,
           greeting: `Hello ${editor.name},`,
-          paragraphs: [`Reviewer ${review.number} submitted a report on round ${ctx.round.number} of "${ctx.submission.title}" (recommendation: ${review.recommendation}).`],
+          paragraphs: [`Reviewer ${review.number} submitted a report on round ${ctx.round.number} of "${ctx.submission.title}" (recommendation: ${recommendationLabel(review.recommendation).toLowerCase()}).`],
           action: { label: "Read the reports", url: `${env.APP_URL}/venues/${ctx.venue.id}/desk/${ctx.submission.id}/rounds/${ctx.round.number}` },
         }),
         { dedupeKey: `review-submitted:${review.id}:${editor.email}` },
