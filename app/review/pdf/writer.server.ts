@@ -4,6 +4,7 @@ import { createRequire } from "node:module";
 import { dirname, join } from "node:path";
 import { PDFDocument, rgb, type PDFFont, type PDFPage } from "pdf-lib";
 import type { Block, Span } from "../tiptap/readable";
+import { woffToSfnt } from "./woff-sfnt.server";
 
 const require = createRequire(import.meta.url);
 // DejaVu Sans: Fontsource ships it whole (Latin, Greek, maths operators, sub- and superscripts) in
@@ -17,6 +18,18 @@ const FONT_FILES = {
 } as const;
 type Face = keyof typeof FONT_FILES;
 let fontBytes: Promise<Record<Face, Buffer>> | undefined;
+
+// Parsing a font is the slow part of embedding it; each document makes its own subset of the one parsed font.
+const parsed = new Map<Uint8Array, ReturnType<typeof fontkit.create>>();
+const cachedFontkit: typeof fontkit = {
+  ...fontkit,
+  create(data: Uint8Array, postscriptName?: string) {
+    if (postscriptName) return fontkit.create(data, postscriptName);
+    let font = parsed.get(data);
+    if (!font) parsed.set(data, (font = fontkit.create(data)));
+    return font;
+  },
+};
 
 const A4: [number, number] = [595.28, 841.89];
 const MARGIN = 56;
@@ -41,13 +54,13 @@ export class PdfWriter {
   }
 
   static async create(title: string) {
-    fontBytes ??= Promise.all(Object.entries(FONT_FILES).map(async ([k, f]) => [k, await readFile(join(fontDir, f))] as const)).then((e) => Object.fromEntries(e) as Record<Face, Buffer>);
+    fontBytes ??= Promise.all(Object.entries(FONT_FILES).map(async ([k, f]) => [k, woffToSfnt(await readFile(join(fontDir, f)))] as const)).then((e) => Object.fromEntries(e) as Record<Face, Buffer>);
     const bytes = await fontBytes;
     const doc = await PDFDocument.create();
-    doc.registerFontkit(fontkit);
+    doc.registerFontkit(cachedFontkit);
     doc.setTitle(title);
     doc.setProducer("Runproof");
-    // WOFF with subsetting: the combination known to embed correctly (see stack notes).
+    // Subsetting keeps each PDF small; the WOFF is unwrapped to its sfnt once (see woff-sfnt.server.ts).
     const fonts = {} as Record<Face, PDFFont>;
     for (const face of Object.keys(FONT_FILES) as Face[]) fonts[face] = await doc.embedFont(bytes[face], { subset: true });
     return new PdfWriter(doc, fonts, new Set(fonts.regular.getCharacterSet()));
