@@ -54,7 +54,7 @@ export default [
       ...prefix("submissions", [
         route("new", "routes/venues/submissions/new.tsx"),
         route(":submissionId", "routes/venues/submissions/layout.tsx", [
-          index("routes/venues/submissions/index.ts"),
+          index("routes/venues/submissions/index.tsx"),
           route("details", "routes/venues/submissions/details.tsx"),
           route("rounds/:round", "routes/venues/submissions/rounds/layout.tsx", [
             index("routes/venues/submissions/rounds/overview.tsx"),
@@ -77,13 +77,13 @@ export default [
         ]),
       ]),
       // Addresses of earlier versions, still in mail already sent: permanent redirects.
-      route("desk/:submissionId/rounds/:round", "routes/legacy/desk-round.ts", { id: "legacy-desk-round" }),
-      route("desk/:submissionId/rounds/:round/packet.pdf", "routes/legacy/desk-round.ts", { id: "legacy-desk-packet" }),
-      route("submissions/:submissionId/manuscript.pdf", "routes/legacy/submission-link.ts", { id: "legacy-manuscript" }),
+      route("desk/:submissionId/rounds/:round", "routes/legacy/desk-round.tsx", { id: "legacy-desk-round" }),
+      route("desk/:submissionId/rounds/:round/packet.pdf", "routes/legacy/desk-round.tsx", { id: "legacy-desk-packet" }),
+      route("submissions/:submissionId/manuscript.pdf", "routes/legacy/submission-link.tsx", { id: "legacy-manuscript" }),
     ]),
-    route("submissions/:submissionId", "routes/legacy/submission-link.ts", { id: "legacy-submission" }),
+    route("submissions/:submissionId", "routes/legacy/submission-link.tsx", { id: "legacy-submission" }),
     route("submissions/:submissionId/join", "routes/submissions/join.tsx"),
-    route("review/:submissionId/rounds/:round", "routes/legacy/review-round.ts"),
+    route("review/:submissionId/rounds/:round", "routes/legacy/review-round.tsx"),
     route("invitations/:token", "routes/invitations/invitation.tsx"),
     route("*", "routes/not-found.tsx"),
   ]),

@@ -51,13 +51,15 @@ const AUTHOR_WRITES: ReadonlySet<Action> = new Set(["write-runs", "write-claims"
 export async function requireRound(args: Args, action: Action) {
   const { user, db } = await requireUser(args);
   const access = await roundOf(args, user);
-  if (!access || !access.can(action)) {
-    if (access && AUTHOR_WRITES.has(action) && access.state !== "draft" && access.can("read-details")) {
-      throw data(`Round ${access.round.number} was sent to the editor and is frozen; changes go into the next round.`, { status: 409 });
-    }
-    throw notFound();
-  }
+  if (!access || !access.can(action)) throw refusal(access, action);
   return { user, db, access };
+}
+
+function refusal(access: RoundAccess | null | undefined, action: Action) {
+  if (access && AUTHOR_WRITES.has(action) && access.state !== "draft" && access.can("read-details")) {
+    return data(`Round ${access.round.number} was sent to the editor and is frozen; changes go into the next round.`, { status: 409 });
+  }
+  return notFound();
 }
 
 /** The submission with the rounds this person may open; 404 when there are none. */
@@ -86,6 +88,6 @@ export async function requireDesk(args: Args) {
 export async function requireLatestRound(args: Args, action: Action) {
   const { user, db, found } = await requireSubmission(args);
   const latest = found.rounds.at(-1);
-  if (!latest || !latest.can(action)) throw notFound();
+  if (!latest || !latest.can(action)) throw refusal(latest, action);
   return { user, db, found, access: latest };
 }

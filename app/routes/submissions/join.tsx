@@ -1,4 +1,4 @@
-import { data, Form, Link, redirect } from "react-router";
+import { data, Form, href, Link, redirect } from "react-router";
 import { sessionUser } from "~/access/session.server";
 import { dbContext } from "~/db.server";
 import { acceptContributorInvite } from "~/workspace/contributors.server";
@@ -20,7 +20,7 @@ export async function action(args: Route.ActionArgs) {
   const token = String((await args.request.formData()).get("token") ?? "");
   const ok = await acceptContributorInvite(args.context.get(dbContext), { submissionId: args.params.submissionId, token, userId: user.id });
   if (!ok) throw data("This invitation was already used or is not valid. Ask the corresponding author to invite you again.", { status: 404 });
-  throw redirect(`/submissions/${args.params.submissionId}`);
+  throw redirect(href("/submissions/:submissionId", { submissionId: args.params.submissionId }));
 }
 
 export default function Join({ loaderData: d }: Route.ComponentProps) {

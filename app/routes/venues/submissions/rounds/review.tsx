@@ -2,6 +2,7 @@ import { parseWithZod } from "@conform-to/zod/v4";
 import { useCallback, useState } from "react";
 import { data, Form, href, redirect, useFetcher } from "react-router";
 import { notFound, requireRound } from "~/access/page-guards.server";
+import { isId } from "~/access/relation.server";
 import { AdvisoryNote } from "~/components/advisory-note";
 import { FlagItem } from "~/components/review/flag-item";
 import { RemarkForm, type AnchorOption } from "~/components/review/remark-form";
@@ -72,7 +73,9 @@ export async function action(args: Route.ActionArgs) {
       return { ok: true as const };
     }
     if (intent === "delete-remark") {
-      await deleteRemark(db, review, String(form.get("remarkId")));
+      const remarkId = String(form.get("remarkId") ?? "");
+      if (!isId(remarkId)) return bad("Choose the remark to delete.");
+      await deleteRemark(db, review, remarkId);
       return { ok: true as const };
     }
     if (intent === "meta" || intent === "submit") {

@@ -33,6 +33,7 @@ export async function action(args: Route.ActionArgs) {
   }
 }
 
-export async function loader() {
+export async function loader(args: Route.LoaderArgs) {
+  await requireRound(args, "read-runs");
   return fail(405, "Use POST with the CSV file as the request body.");
 }

@@ -14,3 +14,8 @@ export async function loader(args: Route.LoaderArgs) {
   const pdf = new URL(args.request.url).pathname.endsWith("/manuscript.pdf");
   return redirect(pdf ? href("/venues/:venueId/submissions/:submissionId/rounds/:round/manuscript.pdf", params) : href("/venues/:venueId/submissions/:submissionId/rounds/:round", params), 301);
 }
+
+/** Never shown: the loader redirects; a component makes a refusal render as the error page, not as raw text. */
+export default function Redirecting() {
+  return null;
+}

@@ -10,3 +10,8 @@ export async function loader(args: Route.LoaderArgs) {
     301,
   );
 }
+
+/** Never shown: the loader redirects; a component makes a refusal render as the error page, not as raw text. */
+export default function Redirecting() {
+  return null;
+}

@@ -14,3 +14,8 @@ export function loader({ params, request }: Route.LoaderArgs) {
     : href("/venues/:venueId/submissions/:submissionId/rounds/:round/desk", params);
   return redirect(to, 301);
 }
+
+/** Never shown: the loader redirects; a component makes a refusal render as the error page, not as raw text. */
+export default function Redirecting() {
+  return null;
+}

@@ -9,3 +9,8 @@ export async function loader(args: Route.LoaderArgs) {
   if (!latest) throw notFound();
   throw redirect(href("/venues/:venueId/submissions/:submissionId/rounds/:round", { venueId: found.venue.id, submissionId: found.submission.id, round: String(latest.round.number) }));
 }
+
+/** Never shown: the loader redirects; a component makes a refusal render as the error page, not as raw text. */
+export default function Redirecting() {
+  return null;
+}
