@@ -1,7 +1,8 @@
+import { absoluteUrl } from "~/mail/links.server";
+import { href } from "react-router";
 import { and, eq, gt, inArray, isNotNull, ne, sql } from "drizzle-orm";
 import type { Database } from "~db/client";
 import { flags, rounds, submissionMembers, submissions, user } from "~db/schema";
-import { env } from "~/config/env.server";
 import { compose } from "~/mail/compose";
 import { enqueueMail } from "~/mail/outbox.server";
 import { groupDigests, type DigestEvent, type DigestFrequency, type DigestMessage } from "./digest-grouping";
@@ -56,7 +57,7 @@ function digestMail(person: Person, freq: string, message: DigestMessage) {
     subject: `Your ${freq} Runproof digest (${message.period})`,
     greeting: `Hello ${person.name},`,
     paragraphs: message.bySubmission.map((s) => `${s.title}:\n${s.lines.map((l) => `• ${l}`).join("\n")}`),
-    action: { label: "Open your dashboard", url: `${env.APP_URL}/dashboard` },
+    action: { label: "Open your dashboard", url: absoluteUrl(href("/dashboard")) },
     footer: "You get this digest because you are listed on these submissions; change how often on your account page.",
   });
 }

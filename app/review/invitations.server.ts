@@ -1,7 +1,8 @@
+import { absoluteUrl } from "~/mail/links.server";
+import { href } from "react-router";
 import { and, eq, inArray, max, sql } from "drizzle-orm";
 import type { Database } from "~db/client";
 import { invitations, reviews, rounds, submissionMembers, submissions, user } from "~db/schema";
-import { env } from "~/config/env.server";
 import { compose } from "~/mail/compose";
 import { enqueueMail } from "~/mail/outbox.server";
 import { audit } from "~/workspace/audit.server";
@@ -37,7 +38,7 @@ export async function conflictCheck(db: Db, submissionId: string, email: string)
  * after the one-time invitation link has been used.
  */
 export function reviewPageUrl(ctx: Pick<RoundContext, "venue" | "submission" | "round">) {
-  return `${env.APP_URL}/venues/${ctx.venue.id}/submissions/${ctx.submission.id}/rounds/${ctx.round.number}/review`;
+  return absoluteUrl(href("/venues/:venueId/submissions/:submissionId/rounds/:round/review", { venueId: ctx.venue.id, submissionId: ctx.submission.id, round: String(ctx.round.number) }));
 }
 
 function invitationCalendar(ctx: RoundContext, invitationId: string, dueAt: Date) {
@@ -45,7 +46,7 @@ function invitationCalendar(ctx: RoundContext, invitationId: string, dueAt: Date
 }
 
 function invitationMessage(ctx: RoundContext, inv: { id: string; dueAt: Date; token: string; name: string | null }, again = false) {
-  const link = `${env.APP_URL}/invitations/${inv.token}`;
+  const link = absoluteUrl(href("/invitations/:token", { token: inv.token }));
   const due = inv.dueAt.toISOString().slice(0, 10);
   return compose({
     subject: `${again ? "Reminder: i" : "I"}nvitation to review "${ctx.submission.title}" for ${ctx.venue.name}`,
@@ -120,6 +121,16 @@ export async function invitationByToken(db: Db, token: string) {
 export async function respondToInvitation(db: Database, opts: { token: string; answer: "accept" | "decline"; userId: string | null }) {
   const { inv, problem } = await invitationByToken(db, opts.token);
   if (!inv || problem) throw new StateConflict(problem ?? "This invitation link is not valid.");
+  return answerInvitation(db, inv, opts);
+}
+
+/** The invited person answers from the round's review page, signed in with the invited address. */
+export async function respondAsInvitee(db: Database, opts: { invitation: typeof invitations.$inferSelect; answer: "accept" | "decline"; userId: string }) {
+  if (opts.invitation.state !== "pending") throw new StateConflict(`This invitation was already answered (it is ${opts.invitation.state}).`);
+  return answerInvitation(db, opts.invitation, opts);
+}
+
+async function answerInvitation(db: Database, inv: typeof invitations.$inferSelect, opts: { answer: "accept" | "decline"; userId: string | null }) {
   const ctx = await roundContext(db, { roundId: inv.roundId });
   if (!OPEN_STATES.includes(ctx.round.state as never)) throw new StateConflict(`Round ${ctx.round.number} was decided; this invitation is no longer needed.`);
   if (opts.answer === "accept" && !opts.userId) throw new StateConflict("Sign in with the invited address to accept.");
@@ -148,7 +159,7 @@ export async function respondToInvitation(db: Database, opts: { token: string; a
           subject: `Invitation ${opts.answer === "accept" ? "accepted" : "declined"}: ${ctx.submission.title}`,
           greeting: `Hello ${editor.name},`,
           paragraphs: [`${inv.email} ${opts.answer === "accept" ? "accepted" : "declined"} the invitation to review round ${ctx.round.number} of "${ctx.submission.title}".`],
-          action: { label: "Open the round", url: `${env.APP_URL}/venues/${ctx.venue.id}/desk/${ctx.submission.id}/rounds/${ctx.round.number}` },
+          action: { label: "Open the round", url: absoluteUrl(href("/venues/:venueId/submissions/:submissionId/rounds/:round/desk", { venueId: ctx.venue.id, submissionId: ctx.submission.id, round: String(ctx.round.number) })) },
         }),
         { dedupeKey: `invite-answer:${inv.id}:${editor.email}` },
       );

@@ -62,7 +62,7 @@ const pick = (table: Record<string, string>) => (value: string | null | undefine
 export const roundStateLabel = pick(ROUND_STATES);
 export const submissionStageLabel = pick(SUBMISSION_STAGES);
 /** The editor's decision and a reviewer's recommendation share one vocabulary. */
-export const decisionLabel = pick(OUTCOMES);
+export const decisionLabel = (value: string | null | undefined) => (value ? pick(OUTCOMES)(value) : "not decided yet");
 export const recommendationLabel = pick(OUTCOMES);
 export const invitationStateLabel = pick(INVITATION_STATES);
 export const reviewStateLabel = pick(REVIEW_STATES);

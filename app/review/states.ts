@@ -7,3 +7,6 @@ export const QUEUE_GROUPS = [
   { state: "reviews-in", label: "Reviews in" },
   { state: "decided", label: "Decided" },
 ] as const;
+
+// Words for states and decisions live in one module; these names stay importable from here.
+export { decisionLabel, roundStateLabel } from "./labels";
