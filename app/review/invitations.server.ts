@@ -126,7 +126,7 @@ export async function respondToInvitation(db: Database, opts: { token: string; a
 
 /** The invited person answers from the round's review page, signed in with the invited address. */
 export async function respondAsInvitee(db: Database, opts: { invitation: typeof invitations.$inferSelect; answer: "accept" | "decline"; userId: string }) {
-  if (opts.invitation.state !== "pending") throw new StateConflict(`This invitation was already answered (it is ${opts.invitation.state}).`);
+  if (opts.invitation.state !== "pending") throw new StateConflict(`This invitation was already answered (${invitationStateLabel(opts.invitation.state).toLowerCase()}).`);
   return answerInvitation(db, opts.invitation, opts);
 }
 

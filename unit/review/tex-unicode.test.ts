@@ -45,3 +45,11 @@ describe("TeX to readable Unicode", () => {
     expect([...out].length).toBeLessThanOrEqual(2000);
   });
 });
+
+describe("TeX relations", () => {
+  it("spaces =, < and > however they were typed", () => {
+    expect(texToUnicode("\\nu/\\eta=1.25")).toBe("ν/η = 1.25");
+    expect(texToUnicode("Ro<1")).toBe("Ro < 1");
+    expect(texToUnicode("Ro = Re\\,E")).toBe("Ro = Re\u2009E");
+  });
+});

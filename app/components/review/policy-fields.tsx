@@ -1,3 +1,4 @@
+import { href } from "react-router";
 import { POLICY_FIELD_INFO } from "~/review/policy-form";
 
 /** The venue's checker thresholds, each named in words with its unit, its default and the rules it governs. */
@@ -20,7 +21,7 @@ export function PolicyFields({ policy, errors }: { policy: Record<string, unknow
                   {f.rules.map((r, i) => (
                     <span key={r.id}>
                       {i ? ", " : ""}
-                      <a className="underline" href={`/help/checks#${r.id}`}>
+                      <a className="underline" href={`${href("/help/checks")}#${r.id}`}>
                         {r.title}
                       </a>
                     </span>

@@ -30,6 +30,7 @@ export async function decisionLetterPdf(input: LetterPdfInput) {
     for (const r of input.remarks) {
       w.text(`${r.reviewer}, on ${r.anchor}`, { bold: true, size: 10 });
       w.blocks(docBlocks(r.body), { indent: 12 });
+      w.gap(6);
     }
   }
   return w.bytes();

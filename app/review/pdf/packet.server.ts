@@ -42,7 +42,7 @@ export async function reviewerPacketPdf(input: PacketInput) {
       w.text("Recomputed by the checker:", { indent: 12, size: 9, bold: true });
       for (const line of derived) w.text(line, { indent: 24, size: 9 });
     }
-    w.text("", { gapAfter: 4 });
+    w.gap(8);
   }
   w.heading("Flags");
   w.text(ADVISORY, { size: 9, gapAfter: 8 });

@@ -177,6 +177,11 @@ export class PdfWriter {
     this.spans([{ text }], opts);
   }
 
+  /** Vertical space between sections, in points. */
+  gap(points: number) {
+    this.y -= Math.min(Math.max(points, 0), 72);
+  }
+
   heading(text: string, size = 14) {
     this.y -= 6;
     this.text(text, { size, bold: true, gapAfter: 6 });

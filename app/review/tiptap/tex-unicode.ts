@@ -99,6 +99,10 @@ class Reader {
       } else if (c === "-") {
         this.i++;
         out += "−";
+      } else if (c === "=" || c === "<" || c === ">") {
+        // Relations read better spaced, as typesetting spaces them.
+        this.i++;
+        out += ` ${c} `;
       } else {
         this.i++;
         out += c;
