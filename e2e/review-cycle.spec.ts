@@ -90,7 +90,7 @@ test("editor invites two reviewers, both review, the editor decides, the authors
   const editor = await as(browser, "editor");
   await editor.goto(`/venues/${fx.venueId}/desk`);
   await editor.getByTestId("queue-sent").getByRole("link", { name: title }).click();
-  await expect(editor.getByTestId("round-state")).toContainText("Round 1 · Sent, awaiting reviewers");
+  await expect(editor.getByTestId("desk-round-state")).toContainText("Round 1 · Sent, awaiting reviewers");
 
   // Conflict guard: a co-author cannot be invited.
   await editor.getByLabel("E-mail").fill(demo("coauthor1").email);
@@ -113,7 +113,7 @@ test("editor invites two reviewers, both review, the editor decides, the authors
   await waitForMail(demo("editor").email, `Review submitted: ${title}`);
 
   await editor.reload();
-  await expect(editor.getByTestId("round-state")).toContainText("All reports in");
+  await expect(editor.getByTestId("desk-round-state")).toContainText("All reports in");
   await expect(editor.getByTestId("report-1")).toContainText("R1 confidential note");
   await expect(editor.getByTestId("report-2")).toContainText("R2 flag remark");
   await editor.getByRole("combobox").selectOption("major-revision");
@@ -137,6 +137,9 @@ test("editor invites two reviewers, both review, the editor decides, the authors
   expect(letterText).toContain("Please reconcile the magnetic Prandtl number");
   expect(letterText).toContain("Reviewer 1");
   expect(letterText).toContain("R2 flag remark");
+  // Formulas print as Unicode maths in the PDF, never as TeX source.
+  expect(letterText).toContain("Pm is ν/η here");
+  expect(letterText).not.toContain("\\nu");
   for (const name of [demo("reviewer1").name, demo("reviewer2").name, "confidential note"]) expect(letterText).not.toContain(name);
 
   const author = await as(browser, "author");
@@ -147,6 +150,9 @@ test("editor invites two reviewers, both review, the editor decides, the authors
   await expect(remarks.first()).toContainText("Reviewer 1");
   await expect(author.getByText("Reviewer 2").first()).toBeVisible();
   await expect(author.locator("body")).not.toContainText(demo("reviewer1").name);
+  // The remark's formula is typeset by KaTeX on the page.
+  await expect(author.locator(".katex").first()).toBeVisible();
+  await expect(author.locator("body")).not.toContainText("\\nu/\\eta");
   const first = remarks.first();
   await first.getByRole("textbox").fill("We recomputed Pm from the corrected diffusivity.");
   await first.getByRole("button", { name: "Save answer" }).click();

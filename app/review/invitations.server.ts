@@ -107,8 +107,8 @@ export async function invitationByToken(db: Db, token: string) {
   const [inv] = await db.select().from(invitations).where(eq(invitations.tokenHash, hashToken(token)));
   if (!inv) return { inv: null, problem: "This invitation link is not valid. If the editor sent you the invitation again, use the link in the most recent mail." };
   if (inv.state === "withdrawn") return { inv, problem: "The editor withdrew this invitation, so there is nothing left to answer. Thank you all the same." };
-  if (inv.state === "accepted") return { inv, problem: "You already accepted this invitation: sign in and open your review from the dashboard." };
-  if (inv.state === "declined") return { inv, problem: "You already declined this invitation." };
+  if (inv.state === "accepted") return { inv, problem: "This invitation link was already used: you accepted it. Sign in and open your review from the dashboard." };
+  if (inv.state === "declined") return { inv, problem: "This invitation link was already used: you declined it." };
   if (inv.state !== "pending") return { inv, problem: `This invitation is ${invitationStateLabel(inv.state).toLowerCase()}; ask the editor for a new one.` };
   if (inv.tokenExpiresAt.getTime() < Date.now()) return { inv, problem: "This invitation link has expired; ask the editor for a new one." };
   return { inv, problem: null };
