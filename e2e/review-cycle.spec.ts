@@ -149,7 +149,7 @@ test("editor invites two reviewers, both review, the editor decides, the authors
 
   const author = await as(browser, "author");
   await author.goto(linkIn(decisionMail, `${ORIGIN}/venues/`));
-  await expect(author.getByRole("heading", { level: 1 })).toContainText("Major revision");
+  await expect(author.getByRole("heading", { name: "Decision on round 1: Major revision" })).toBeVisible();
   const remarks = author.getByTestId("released-remark");
   await expect(remarks).toHaveCount(4);
   await expect(remarks.first()).toContainText("Reviewer 1");
