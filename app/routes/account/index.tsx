@@ -1,4 +1,5 @@
-import { getFormProps, useForm } from "@conform-to/react";
+import { getFormProps } from "@conform-to/react";
+import { useCheckedForm } from "~/components/checked-form";
 import { getZodConstraint, parseWithZod } from "@conform-to/zod/v4";
 import { eq } from "drizzle-orm";
 import { data, Form, Link } from "react-router";
@@ -34,12 +35,11 @@ export async function action(args: Route.ActionArgs) {
 
 export default function Account({ loaderData, actionData }: Route.ComponentProps) {
   const { profile } = loaderData;
-  const [form, fields] = useForm({
+  const [form, fields] = useCheckedForm({
     lastResult: actionData?.result,
     defaultValue: { name: profile.name, affiliation: profile.affiliation ?? "", orcid: profile.orcid ?? "" },
     constraint: getZodConstraint(profileSchema),
     onValidate: ({ formData }) => parseWithZod(formData, { schema: profileSchema }),
-    shouldRevalidate: "onBlur",
   });
   return (
     <main className="mx-auto max-w-xl p-gutter">

@@ -1,4 +1,5 @@
-import { getFormProps, getInputProps, getSelectProps, useForm } from "@conform-to/react";
+import { getFormProps, getInputProps, getSelectProps } from "@conform-to/react";
+import { useCheckedForm } from "~/components/checked-form";
 import { getZodConstraint, parseWithZod } from "@conform-to/zod/v4";
 import { data, Form, Link, useNavigation } from "react-router";
 import { createApiToken, listApiTokens, revokeApiToken } from "~/api/tokens.server";
@@ -37,12 +38,11 @@ const day = (d: Date | string) => new Date(d).toISOString().slice(0, 10);
 
 export default function AccountTokens({ loaderData, actionData }: Route.ComponentProps) {
   const navigation = useNavigation();
-  const [form, fields] = useForm({
+  const [form, fields] = useCheckedForm({
     lastResult: navigation.state === "idle" ? actionData?.result : undefined,
     defaultValue: { access: "write", expiresInDays: "90" },
     constraint: getZodConstraint(createTokenSchema),
     onValidate: ({ formData }) => parseWithZod(formData, { schema: createTokenSchema }),
-    shouldRevalidate: "onBlur",
   });
   return (
     <main className="mx-auto max-w-2xl p-gutter">

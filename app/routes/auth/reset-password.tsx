@@ -1,4 +1,5 @@
-import { getFormProps, useForm } from "@conform-to/react";
+import { getFormProps } from "@conform-to/react";
+import { useCheckedForm } from "~/components/checked-form";
 import { getZodConstraint, parseWithZod } from "@conform-to/zod/v4";
 import { data, Form, Link, redirect } from "react-router";
 import { auth } from "~/auth/auth.server";
@@ -44,11 +45,10 @@ export async function action({ request }: Route.ActionArgs) {
 }
 
 export default function ResetPassword({ loaderData, actionData }: Route.ComponentProps) {
-  const [form, fields] = useForm({
+  const [form, fields] = useCheckedForm({
     lastResult: actionData?.result,
     constraint: getZodConstraint(resetSchema),
     onValidate: ({ formData }) => parseWithZod(formData, { schema: resetSchema }),
-    shouldRevalidate: "onBlur",
   });
   if (!loaderData.token) {
     return (

@@ -1,4 +1,5 @@
-import { getFormProps, useForm } from "@conform-to/react";
+import { getFormProps } from "@conform-to/react";
+import { useCheckedForm } from "~/components/checked-form";
 import { getZodConstraint, parseWithZod } from "@conform-to/zod/v4";
 import { data, Form, Link, redirect, useSearchParams } from "react-router";
 import { auth } from "~/auth/auth.server";
@@ -37,11 +38,10 @@ export async function action({ request }: Route.ActionArgs) {
 
 export default function SignUp({ actionData }: Route.ComponentProps) {
   const [params] = useSearchParams();
-  const [form, fields] = useForm({
+  const [form, fields] = useCheckedForm({
     lastResult: actionData?.result,
     constraint: getZodConstraint(signUpSchema),
     onValidate: ({ formData }) => parseWithZod(formData, { schema: signUpSchema }),
-    shouldRevalidate: "onBlur",
   });
   return (
     <main className="mx-auto max-w-md p-gutter">
