@@ -2,7 +2,7 @@ import { getFormProps } from "@conform-to/react";
 import { useCheckedForm } from "~/components/checked-form";
 import { getZodConstraint, parseWithZod } from "@conform-to/zod/v4";
 import { eq } from "drizzle-orm";
-import { data, Form, Link } from "react-router";
+import { data, Form, Link, href } from "react-router";
 import { user as userTable } from "~db/schema";
 import { profileSchema } from "~/auth/forms";
 import { requireUser } from "~/access/session.server";
@@ -46,7 +46,7 @@ export default function Account({ loaderData, actionData }: Route.ComponentProps
       <h1 className="text-title">Your account</h1>
       <p className="mt-2 text-basalt-soft">Signed in as {profile.email}.</p>
       <p className="mt-2">
-        <Link to="/account/tokens" className="underline">API tokens</Link> for scripts that push run records.
+        <Link to={href("/account/tokens")} className="underline">API tokens</Link> for scripts that push run records.
       </p>
       {actionData?.saved ? (
         <p className="mt-3 rounded bg-lichen-wash p-3" role="status">

@@ -1,7 +1,7 @@
 import { getFormProps } from "@conform-to/react";
 import { useCheckedForm } from "~/components/checked-form";
 import { getZodConstraint, parseWithZod } from "@conform-to/zod/v4";
-import { data, Form, Link, redirect, useSearchParams } from "react-router";
+import { data, Form, Link, redirect, useSearchParams, href } from "react-router";
 import { auth } from "~/auth/auth.server";
 import { authErrorOf, forwardCookies } from "~/auth/cookies.server";
 import { safeNext, signInSchema } from "~/auth/forms";
@@ -75,7 +75,7 @@ export default function SignIn({ actionData }: Route.ComponentProps) {
         <FormErrors errors={form.errors} id={form.errorId} />
       </Form>
       <p className="mt-6 text-caption">
-        <Link to="/forgot-password">Forgot your password?</Link> · <Link to="/sign-up">Create an account</Link>
+        <Link to={href("/forgot-password")}>Forgot your password?</Link> · <Link to={href("/sign-up")}>Create an account</Link>
       </p>
     </main>
   );

@@ -1,7 +1,7 @@
 import { getFormProps } from "@conform-to/react";
 import { useCheckedForm } from "~/components/checked-form";
 import { getZodConstraint, parseWithZod } from "@conform-to/zod/v4";
-import { data, Form, Link, redirect, useSearchParams } from "react-router";
+import { data, Form, Link, redirect, useSearchParams, href } from "react-router";
 import { auth } from "~/auth/auth.server";
 import { authErrorOf } from "~/auth/cookies.server";
 import { safeNext, signUpSchema } from "~/auth/forms";
@@ -33,7 +33,7 @@ export async function action({ request }: Route.ActionArgs) {
       { status: 400 },
     );
   }
-  throw redirect(`/check-email?to=${encodeURIComponent(email)}`);
+  throw redirect(`${href("/check-email")}?to=${encodeURIComponent(email)}`);
 }
 
 export default function SignUp({ actionData }: Route.ComponentProps) {
@@ -62,7 +62,7 @@ export default function SignUp({ actionData }: Route.ComponentProps) {
         <FormErrors errors={form.errors} id={form.errorId} />
       </Form>
       <p className="mt-6 text-caption">
-        Already registered? <Link to="/sign-in">Sign in</Link>
+        Already registered? <Link to={href("/sign-in")}>Sign in</Link>
       </p>
     </main>
   );
