@@ -4,6 +4,7 @@ import { requestMemoMiddleware } from "./access/request-memo.server";
 import { dbMiddleware } from "./middleware.server";
 import { ErrorView } from "./components/error-view";
 import "./app.css";
+import "./lib/zod-messages";
 
 export const middleware: Route.MiddlewareFunction[] = [dbMiddleware, requestMemoMiddleware];
 

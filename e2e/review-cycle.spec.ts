@@ -92,7 +92,7 @@ test("editor invites two reviewers, both review, the editor decides, the authors
   const editor = await as(browser, "editor");
   await editor.goto(`/venues/${fx.venueId}/desk`);
   await editor.getByTestId("queue-sent").getByRole("link", { name: title }).click();
-  await expect(editor.getByTestId("desk-round-state")).toContainText("Round 1 · Sent, awaiting reviewers");
+  await expect(editor.getByTestId("desk-round-state")).toContainText("Round 1 · with the editor");
 
   // Conflict guard: a co-author cannot be invited.
   await editor.getByLabel("E-mail").fill(demo("coauthor1").email);
@@ -115,7 +115,7 @@ test("editor invites two reviewers, both review, the editor decides, the authors
   await waitForMail(demo("editor").email, `Review submitted: ${title}`);
 
   await editor.reload();
-  await expect(editor.getByTestId("desk-round-state")).toContainText("All reports in");
+  await expect(editor.getByTestId("desk-round-state")).toContainText("reviews in");
   await expect(editor.getByTestId("report-1")).toContainText("R1 confidential note");
   await expect(editor.getByTestId("report-2")).toContainText("R2 flag remark");
   await editor.getByRole("combobox").selectOption("major-revision");
@@ -128,7 +128,7 @@ test("editor invites two reviewers, both review, the editor decides, the authors
   await expect(editor.getByTestId("audit-log")).toContainText("Round 1 sent to the editor");
   await expect(editor.getByTestId("audit-log")).not.toContainText("decision.released");
 
-  const packet = await editor.request.get(`/venues/${fx.venueId}/desk/${fx.submissionId}/rounds/1/packet.pdf`);
+  const packet = await editor.request.get(`/venues/${fx.venueId}/submissions/${fx.submissionId}/rounds/1/packet.pdf`);
   expect(packet.headers()["content-type"]).toBe("application/pdf");
   const packetText = await pdfText(await packet.body());
   expect(packetText).toContain("A.pm-from-diffusivities");
@@ -184,7 +184,7 @@ test("editor invites two reviewers, both review, the editor decides, the authors
   await expect(author.getByText("We recomputed Pm from the corrected diffusivity.")).toBeVisible();
 
   // Round 2 on the desk: the editor invites round 1's reviewers again with one click.
-  await editor.goto(`/venues/${fx.venueId}/desk/${fx.submissionId}/rounds/2`);
+  await editor.goto(`/venues/${fx.venueId}/submissions/${fx.submissionId}/rounds/2/desk`);
   await editor.getByRole("button", { name: "Invite round 1's reviewers again" }).click();
   await expect(editor.getByRole("status")).toContainText(demo("reviewer1").email);
   await expect(editor.getByTestId("invitations")).toContainText(demo("reviewer2").email);

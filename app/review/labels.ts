@@ -3,12 +3,13 @@
  * values are slugs (`major-revision`, `round.sent`); pages, mail and PDFs show these words.
  */
 
+/** Lower case: pages set them inside a sentence ("Round 1 · with the editor"). */
 const ROUND_STATES: Record<string, string> = {
-  draft: "Draft, private to the authors",
-  sent: "Sent, awaiting reviewers",
-  "under-review": "Under review",
-  "reviews-in": "All reports in",
-  decided: "Decided",
+  draft: "draft, private to the authors",
+  sent: "with the editor",
+  "under-review": "with reviewers",
+  "reviews-in": "reviews in",
+  decided: "decided",
 };
 
 const SUBMISSION_STAGES: Record<string, string> = {
