@@ -51,22 +51,22 @@ export function derive(run: RunRecord, rec: Recomputed, given: Given, series: Se
   put(d, "Pr", rec.Pr);
   put(d, "Pm", c.Pm);
   put(d, "Pm", rec.Pm);
-  if (c.Pm !== undefined) put(d, "q", c.Pm / c.Pr);
+  if (c.Pm !== undefined && c.Pr !== undefined) put(d, "q", c.Pm / c.Pr);
   put(d, "q", rec.q);
   if (d.Pm !== undefined && d.Pr !== undefined) put(d, "q", d.Pm / d.Pr);
   put(d, "chi", chi);
 
-  const fc: FlavourContext = { E: c.E, Pr: c.Pr, lengthScale: run.conventions.lengthScale, chi, ...(given.Nu !== undefined ? { Nu: given.Nu } : {}) };
-  put(d, "Ra", toClassical(c.Ra, run.conventions.rayleigh, fc));
+  const fc: FlavourContext = { E: d.E, Pr: d.Pr, lengthScale: run.conventions.lengthScale, chi, ...(given.Nu !== undefined ? { Nu: given.Nu } : {}) };
+  if (c.Ra !== undefined) put(d, "Ra", toClassical(c.Ra, run.conventions.rayleigh, fc));
   put(d, "Ra", rec.Ra);
   if (d.Ra !== undefined) {
     put(d, "RaRotating", fromClassical(d.Ra, "rotating", fc));
     put(d, "RaBuoyancy", fromClassical(d.Ra, "buoyancy", fc));
   }
-  if (run.conventions.rayleigh === "flux") put(d, "RaFlux", c.Ra);
+  if (run.conventions.rayleigh === "flux" && c.Ra !== undefined) put(d, "RaFlux", c.Ra);
   else if (d.Ra !== undefined) put(d, "RaFlux", fromClassical(d.Ra, "flux", fc));
   put(d, "RaFlux", rec.RaFlux);
-  if (d.Pm !== undefined) put(d, "Emag_ekman", c.E / d.Pm);
+  if (d.Pm !== undefined && d.E !== undefined) put(d, "Emag_ekman", d.E / d.Pm);
 
   fillIdentities(d, run, given);
   put(d, "NOverOmega", run.stableLayer?.NOverOmega);

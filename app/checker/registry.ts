@@ -28,6 +28,7 @@ export const FAMILIES: Record<Family, string> = {
   H: "Geometry",
   I: "Regime notes",
   J: "Benchmarks",
+  K: "Ratio and scaling statements",
 };
 
 const all: RuleInfo[] = [RULES_A, RULES_B, RULES_C, RULES_D, RULES_E, RULES_F, RULES_G, RULES_H, RULES_I, RULES_J]
