@@ -41,6 +41,7 @@ export function checkStated(cc: ClaimContext): Flag[] {
   const out: Flag[] = [];
   const rows = cc.claim.stated ?? [];
   rows.forEach((row, i) => {
+    if (row.ratio || row.scalesWith !== undefined) return; // family K
     const iv = parseStated(row.value); // validated when the input was parsed
     const labels = row.run !== undefined ? [row.run] : cc.claim.runs.map((r) => r.label);
     for (const label of labels) {
