@@ -10,7 +10,7 @@ import type { Policy } from "./policy.ts";
 import type { RunRecord } from "./schema.ts";
 import type { SeriesStats } from "./series.ts";
 import { convertDuration } from "./timeunits.ts";
-import { isNum, type Derived } from "./types.ts";
+import { isNum, type Derived, type SeriesSummary } from "./types.ts";
 import { layerGeometry } from "./geometry.ts";
 
 export const GIVEN_KEYS = ["Re", "Rm", "Ro", "Rol", "Lo", "Lambda", "kineticEnergy", "magneticEnergy", "Nu", "dipolarity"] as const;
@@ -92,14 +92,26 @@ export function derive(run: RunRecord, rec: Recomputed, given: Given, series: Se
     if (w.magnetic !== undefined) aw.magnetic = w.magnetic;
     if (w.overturns !== undefined) aw.overturns = w.overturns;
     if (Object.keys(aw).length > 0) d.averagingWindow = aw;
+    d.series = seriesSummary(series);
   }
   return ordered(d);
 }
 
 const ORDER: Array<keyof Derived> = [
   "E", "Ra", "RaRotating", "RaBuoyancy", "RaFlux", "Pr", "Pm", "q", "chi", "Emag_ekman", "Re", "Rm", "Ro", "Rol", "Lo",
-  "Lambda", "NOverOmega", "tangentCylinderLatitudeDeg", "layerThicknessKm", "layerTangentLatitudeDeg", "runLength", "averagingWindow",
+  "Lambda", "NOverOmega", "tangentCylinderLatitudeDeg", "layerThicknessKm", "layerTangentLatitudeDeg", "runLength", "averagingWindow", "series",
 ];
+
+/** derived.series: one entry per column of the attached series (computed once, in series.ts). */
+export function seriesSummary(s: SeriesStats): Record<string, SeriesSummary> {
+  const out: Record<string, SeriesSummary> = {};
+  for (const c of Object.values(s.columns)) {
+    const e: SeriesSummary = { mean: c.mean, stderr: c.standardError, tauInt: c.tau, effectiveSamples: c.ess, transientEnd: c.truncationTime };
+    if (Number.isFinite(c.z)) e.z = c.z;
+    out[c.column] = e;
+  }
+  return out;
+}
 
 /** Same keys in the contract's order. */
 function ordered(d: Derived): Derived {

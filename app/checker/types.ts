@@ -48,6 +48,21 @@ export interface AveragingWindow {
   overturns?: number;
 }
 
+/** Statistics of one column of an attached time series (contract: derived.series). */
+export interface SeriesSummary {
+  /** mean after the transient */
+  mean: number;
+  /** batch-means standard error of that mean */
+  stderr: number;
+  /** integrated autocorrelation time, in samples */
+  tauInt: number;
+  effectiveSamples: number;
+  /** end of the initial transient (MSER-5), in the run's time unit */
+  transientEnd: number;
+  /** two-halves z score; absent when it is not finite (a constant column) */
+  z?: number;
+}
+
 /** The contract's `derived` object: every key absent when it cannot be known. */
 export interface Derived {
   E?: number;
@@ -72,6 +87,7 @@ export interface Derived {
   layerTangentLatitudeDeg?: number;
   runLength?: RunLength;
   averagingWindow?: AveragingWindow;
+  series?: Record<string, SeriesSummary>;
 }
 
 export interface RunResult {

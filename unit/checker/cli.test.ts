@@ -1,5 +1,5 @@
 import { spawnSync } from "node:child_process";
-import { mkdtempSync, writeFileSync } from "node:fs";
+import { mkdtempSync, readFileSync, writeFileSync } from "node:fs";
 import { tmpdir } from "node:os";
 import { join } from "node:path";
 import { describe, expect, it } from "vitest";
@@ -56,4 +56,34 @@ describe("command-line checker", () => {
     expect(r.status).toBe(2);
     expect(r.stderr).toContain("line 3: column Re is not a number ('oops')");
   });
+
+  it("reads a whitespace .dat series through --columns and prints the same output as its CSV", () => {
+    const dir = mkdtempSync(join(tmpdir(), "rp-"));
+    const lines = readFileSync("examples/series/strat-B.csv", "utf8").trim().split(/\r?\n/);
+    const header = lines[0]!.split(",");
+    // The same numbers in Fortran D form with an extra column to skip, under a comment line.
+    const dat = ["# written by an invented code", ...lines.slice(1).map((l) => l.split(",").map((v) => Number(v).toExponential(8).replace("e", "D")).join("   ") + "   9.9D+09")].join("\n");
+    const f = join(dir, "strat-B.dat");
+    writeFileSync(f, dat);
+    const base = ["examples/runs/strat-B.json"];
+    const fromCsv = run("--series", "strat-B=examples/series/strat-B.csv", ...base);
+    const fromDat = run("--series", `strat-B=${f}`, "--columns", `strat-B=${header.join(",")},-`, ...base);
+    expect(fromDat.status, fromDat.stderr).toBe(0);
+    const a = JSON.parse(fromCsv.stdout);
+    const b = JSON.parse(fromDat.stdout);
+    expect(b.runs[0].derived.series).toEqual(a.runs[0].derived.series);
+    expect(Object.keys(b.runs[0].derived.series)).toEqual(header.slice(1));
+    expect(b).toEqual(a);
+  }, 90_000);
+  it("exits 2 for a .dat file without --columns, and for a bad map", () => {
+    const dir = mkdtempSync(join(tmpdir(), "rp-"));
+    const f = join(dir, "s.dat");
+    writeFileSync(f, "0 1\n1 2\n");
+    const r = run("--series", `strat-B=${f}`, "examples/runs/strat-B.json");
+    expect(r.status).toBe(2);
+    expect(r.stderr).toContain("name its columns with --columns strat-B=");
+    const r2 = run("--series", `strat-B=${f}`, "--columns", "strat-B=t,R m", "examples/runs/strat-B.json");
+    expect(r2.status).toBe(2);
+    expect(r2.stderr).toContain('column 2 of the map is "R m"');
+  }, 60_000);
 });
