@@ -3,6 +3,8 @@ import { mkdtempSync, readFileSync, writeFileSync } from "node:fs";
 import { tmpdir } from "node:os";
 import { join } from "node:path";
 import { describe, expect, it } from "vitest";
+import { parseSeriesCsv } from "../../app/checker/csv.ts";
+import { netcdf } from "./netcdf-writer.ts";
 
 const tsx = "node_modules/.bin/tsx";
 const run = (...args: string[]) => spawnSync(tsx, ["scripts/check.ts", ...args], { encoding: "utf8", timeout: 60_000 });
@@ -86,4 +88,26 @@ describe("command-line checker", () => {
     expect(r2.status).toBe(2);
     expect(r2.stderr).toContain('column 2 of the map is "R m"');
   }, 60_000);
+
+  it("reads HDF5 (.h5) and NetCDF (.nc) series through --columns as dataset names, same output as CSV", async () => {
+    const h5wasm = (await import("h5wasm")).default;
+    const { FS } = await h5wasm.ready;
+    const dir = mkdtempSync(join(tmpdir(), "rp-"));
+    const cols = parseSeriesCsv(readFileSync("examples/series/strat-B.csv", "utf8"));
+    const mem = `/cli-${Date.now()}.h5`;
+    const f = new h5wasm.File(mem, "w");
+    f.create_group("diag");
+    for (const [k, v] of Object.entries(cols)) (k === "Rm" ? (f.get("diag") as InstanceType<typeof h5wasm.Group>) : f).create_dataset({ name: k === "Rm" ? "rm" : k, data: new Float64Array(v) });
+    f.close();
+    writeFileSync(join(dir, "s.h5"), FS.readFile(mem) as Uint8Array);
+    writeFileSync(join(dir, "s.nc"), netcdf(cols));
+    const names = Object.keys(cols);
+    const fromCsv = JSON.parse(run("--series", "strat-B=examples/series/strat-B.csv", "examples/runs/strat-B.json").stdout);
+    const fromH5 = run("--series", `strat-B=${join(dir, "s.h5")}`, "--columns", `strat-B=${names.map((n) => (n === "Rm" ? "Rm:diag/rm" : n)).join(",")}`, "examples/runs/strat-B.json");
+    expect(fromH5.status, fromH5.stderr).toBe(0);
+    expect(JSON.parse(fromH5.stdout)).toEqual(fromCsv);
+    const fromNc = run("--series", `strat-B=${join(dir, "s.nc")}`, "--columns", `strat-B=${names.join(",")}`, "examples/runs/strat-B.json");
+    expect(fromNc.status, fromNc.stderr).toBe(0);
+    expect(JSON.parse(fromNc.stdout)).toEqual(fromCsv);
+  }, 120_000);
 });
