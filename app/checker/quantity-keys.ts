@@ -61,6 +61,13 @@ export const QUANTITY_NAMES: Record<string, string> = {
   pointBtheta: "benchmark point value B_θ",
 };
 
+/** "Elsasser" → "Lambda": a statable key whose name mentions what was typed. */
+export function suggestQuantity(typed: string): string | undefined {
+  const t = typed.trim().toLowerCase();
+  if (t.length < 2) return undefined;
+  return STATABLE.find((k) => k.toLowerCase() === t) ?? STATABLE.find((k) => (QUANTITY_NAMES[k] ?? "").toLowerCase().includes(t));
+}
+
 /** Top-level keys of the run record that a claim may declare as varied. */
 export const VARIABLE_PATHS = [
   "geometry", "conventions", "controls", "controls.E", "controls.Ra", "controls.Pr", "controls.Pm", "material",

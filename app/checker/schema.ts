@@ -5,7 +5,9 @@
  */
 import * as z from "zod";
 import { policySchema } from "./policy.ts";
-import { isStatable, QUANTITY_NAMES, STATABLE } from "./quantity-keys.ts";
+import { isStatable, suggestQuantity } from "./quantity-keys.ts";
+
+export { suggestQuantity };
 import { parseStated, StatedValueError } from "./stated.ts";
 
 const num = () => z.number();
@@ -107,13 +109,6 @@ export const runSchema = z
   .strict();
 
 export type RunRecord = z.infer<typeof runSchema>;
-
-/** "Elsasser" → "Lambda": a statable key whose name mentions what was typed. */
-export function suggestQuantity(typed: string): string | undefined {
-  const t = typed.trim().toLowerCase();
-  if (t.length < 2) return undefined;
-  return STATABLE.find((k) => k.toLowerCase() === t) ?? STATABLE.find((k) => (QUANTITY_NAMES[k] ?? "").toLowerCase().includes(t));
-}
 
 const quantity = (what: string) =>
   z
