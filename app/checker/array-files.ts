@@ -40,11 +40,10 @@ export function columnsFromArrays(arrays: Array<[DatasetMapEntry, ArrayLike<numb
   for (const [entry, data, why] of arrays) {
     if (!data) throw new CsvFormatError(`dataset "${entry.dataset}" (for column ${entry.column}) ${why}`);
     if (out[entry.column]) throw new CsvFormatError(`column ${entry.column} appears twice in the map`);
-    const col = new Array<number>(data.length);
-    for (let i = 0; i < data.length; i++) {
-      const v = Number(data[i]);
-      if (!Number.isFinite(v)) throw new CsvFormatError(`dataset "${entry.dataset}" has a non-finite value at index ${i} (${String(data[i])})`);
-      col[i] = v;
+    // typed arrays of doubles or floats copy in one go; 64-bit integers go through Number
+    const col = data instanceof Float64Array || data instanceof Float32Array ? Array.from(data) : Array.from(data as ArrayLike<number | bigint>, Number);
+    for (let i = 0; i < col.length; i++) {
+      if (!Number.isFinite(col[i])) throw new CsvFormatError(`dataset "${entry.dataset}" has a non-finite value at index ${i} (${String(data[i])})`);
     }
     if (n < 0) n = col.length;
     else if (col.length !== n) throw new CsvFormatError(`dataset "${entry.dataset}" has ${col.length} values but "${arrays[0]![0].dataset}" has ${n}; all datasets of the map must be equally long`);

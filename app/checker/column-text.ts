@@ -25,10 +25,12 @@ export function parseColumnMap(spec: string): ColumnMap {
   });
 }
 
+const PLAIN = /^[+-]?(?:\d+\.?\d*|\.\d+)(?:[eE][+-]?\d+)?$/;
 const FORTRAN = /^([+-]?(?:\d+\.?\d*|\.\d+))(?:[dDeE]([+-]?\d+)|([+-]\d{1,3}))$/;
 
 /** One number as Fortran writes it; NaN when it is none. */
 export function fortranNumber(cell: string): number {
+  if (PLAIN.test(cell)) return Number(cell);
   const m = FORTRAN.exec(cell);
   if (m) return Number(`${m[1]}e${m[2] ?? m[3]}`);
   return /^[+-]?(?:\d+\.?\d*|\.\d+)$/.test(cell) ? Number(cell) : NaN;
@@ -68,15 +70,18 @@ export class ColumnTextReader {
     } else if (cells.length !== this.fields) {
       throw new CsvFormatError(`expected ${this.fields} columns like the first row, found ${cells.length}`, line);
     }
-    const record: string[] = [];
-    this.map.forEach((name, i) => {
-      if (name === null) return;
+    const values: number[] = [];
+    const kept: string[] = [];
+    for (let i = 0; i < this.map.length; i++) {
+      const name = this.map[i];
+      if (name === null || name === undefined) continue;
       const cell = cells[i] ?? "";
       const v = fortranNumber(cell);
       if (!Number.isFinite(v)) throw new CsvFormatError(`column ${i + 1} (${name}) is not a number ('${cell.slice(0, 40)}')`, line);
-      record.push(String(v));
-    });
-    this.builder.add(record, line);
+      values.push(v);
+      kept.push(cell);
+    }
+    this.builder.addNumbers(values, kept, line);
   }
 
   finish(): Columns {
