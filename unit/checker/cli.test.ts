@@ -2,9 +2,12 @@ import { spawnSync } from "node:child_process";
 import { mkdtempSync, readFileSync, writeFileSync } from "node:fs";
 import { tmpdir } from "node:os";
 import { join } from "node:path";
-import { describe, expect, it } from "vitest";
+import { describe, expect, it, vi } from "vitest";
 import { parseSeriesCsv } from "../../app/checker/csv.ts";
 import { netcdf } from "./netcdf-writer.ts";
+
+// Each case starts a tsx process; on a loaded two-core machine that alone can take 20 s.
+vi.setConfig({ testTimeout: 90_000 });
 
 const tsx = "node_modules/.bin/tsx";
 const run = (...args: string[]) => spawnSync(tsx, ["scripts/check.ts", ...args], { encoding: "utf8", timeout: 60_000 });
