@@ -106,7 +106,14 @@ const RULES: Record<string, Rule> = {
   "routes/venues/submissions/rounds/desk.tsx": {
     kind: "round",
     get: { editor: "-ooo", admin: "-ooo" },
-    post: { invite: { editor: "-aa-" }, reinvite: { editor: "-aa-" }, "save-decision": { editor: "-aa-" }, release: { editor: "-aa-" } },
+    post: {
+      invite: { editor: "-aa-" },
+      reinvite: { editor: "-aa-" },
+      "resend-invitation": { editor: "-aa-" },
+      "withdraw-invitation": { editor: "-aa-" },
+      "save-decision": { editor: "-aa-" },
+      release: { editor: "-aa-" },
+    },
   },
   "routes/venues/submissions/new.tsx": { kind: "global", get: SIGNED_IN, post: { ...Object.fromEntries(PEOPLE.map((p) => [p, "a"])), anonymous: "s" } },
   "routes/venues/desk.tsx": {

@@ -21,6 +21,8 @@ test.beforeAll(() => {
 async function as(browser: Browser, key: Parameters<typeof login>[1]) {
   const context = await browser.newContext({ baseURL: ORIGIN });
   const page = await context.newPage();
+  // Irreversible steps ask once; the person means it.
+  page.on("dialog", (dialog) => void dialog.accept());
   await login(page, key);
   return page;
 }

@@ -146,6 +146,11 @@ test("an author takes a submission from empty to sent; a co-author follows; an u
   }
   await page.reload();
   await expect(page.getByTestId("open-mismatches")).toHaveText("No mismatch is left open.");
+  // Sending asks once what it will do; the author confirms.
+  page.once("dialog", (dialog) => {
+    expect(dialog.message()).toContain("freezes");
+    void dialog.accept();
+  });
   await page.getByRole("button", { name: "Send round 1 to the editor" }).click();
   await expect(page.getByTestId("sent-note")).toBeVisible();
   await expect(page.getByTestId("round-state")).toContainText("frozen");

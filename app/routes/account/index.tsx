@@ -8,6 +8,7 @@ import { profileSchema } from "~/auth/forms";
 import { requireUser } from "~/access/session.server";
 import { TextField } from "~/components/field";
 import { DigestForm } from "~/components/review/digest-form";
+import { previewDigest } from "~/review/digest.server";
 import type { Route } from "./+types/index";
 
 export const meta: Route.MetaFunction = () => [{ title: "Your account · Runproof" }];
@@ -18,7 +19,8 @@ export async function loader(args: Route.LoaderArgs) {
     .select({ name: userTable.name, email: userTable.email, affiliation: userTable.affiliation, orcid: userTable.orcid, digest: userTable.digest })
     .from(userTable)
     .where(eq(userTable.id, user.id));
-  return { profile: profile! };
+  const preview = await previewDigest(db, user.id);
+  return { profile: profile!, preview: preview ? { ...preview, since: preview.since ? new Date(preview.since).toISOString().slice(0, 10) : null } : null };
 }
 
 export async function action(args: Route.ActionArgs) {
@@ -62,6 +64,31 @@ export default function Account({ loaderData, actionData }: Route.ComponentProps
         </button>
       </Form>
       <DigestForm current={profile.digest} />
+      {loaderData.preview ? (
+        <section className="card mt-6" aria-labelledby="digest-preview-h" data-testid="digest-preview">
+          <h2 id="digest-preview-h" className="text-lead">
+            Your next digest
+          </h2>
+          {loaderData.preview.frequency === "none" ? (
+            <p className="mt-2 text-caption">You asked for no digest; choose daily or weekly above to get one.</p>
+          ) : loaderData.preview.bySubmission.length === 0 ? (
+            <p className="mt-2 text-caption">Nothing new{loaderData.preview.since ? ` since ${loaderData.preview.since}` : ""}: no new flags, released remarks or decisions yet.</p>
+          ) : (
+            <ul className="mt-2 flex flex-col gap-2">
+              {loaderData.preview.bySubmission.map((s) => (
+                <li key={s.submissionId}>
+                  <p className="font-semibold">{s.title}</p>
+                  <ul className="ml-4 list-disc text-caption">
+                    {s.lines.map((line, i) => (
+                      <li key={i}>{line}</li>
+                    ))}
+                  </ul>
+                </li>
+              ))}
+            </ul>
+          )}
+        </section>
+      ) : null}
     </main>
   );
 }

@@ -8,7 +8,8 @@ import { asActionError } from "~/workspace/action-errors.server";
 import { releaseDecision, saveDecisionDraft } from "~/review/decisions.server";
 import { editorialView } from "~/review/editorial.server";
 import { decisionSchema, inviteSchema, RECOMMENDATIONS, reinviteSchema } from "~/review/forms";
-import { conflictCheck, inviteReviewer, reinvitePrevious } from "~/review/invitations.server";
+import { conflictCheck, inviteReviewer, reinvitePrevious, resendInvitation, withdrawInvitation } from "~/review/invitations.server";
+import { isId } from "~/access/relation.server";
 import type { Route } from "./+types/desk";
 import { auditEntryLabel, decisionLabel, invitationStateLabel, recommendationLabel, reviewStateLabel, roundStateLabel, verdictLabel } from "~/review/labels";
 
@@ -33,8 +34,19 @@ type ActionResult = { ok: boolean; error?: string; issues?: { path: string; mess
 export async function action(args: Route.ActionArgs) {
   const form = await args.request.formData();
   const intent = String(form.get("intent"));
-  const { db, user, access: ctx } = await requireRound(args, intent === "invite" || intent === "reinvite" ? "invite" : "decide");
+  const inviting = ["invite", "reinvite", "resend-invitation", "withdraw-invitation"].includes(intent);
+  const { db, user, access: ctx } = await requireRound(args, inviting ? "invite" : "decide");
   try {
+    if (intent === "resend-invitation" || intent === "withdraw-invitation") {
+      const invitationId = String(form.get("invitationId") ?? "");
+      if (!isId(invitationId)) return data<ActionResult>({ ok: false, form: "invite", error: "Choose the invitation to send again or withdraw." }, { status: 400 });
+      if (intent === "resend-invitation") {
+        await resendInvitation(db, { roundId: ctx.round.id, invitationId, editorId: user.id });
+        return data<ActionResult>({ ok: true, form: "invite", message: "Invitation sent again with a new link; the old link now points to the new mail." });
+      }
+      await withdrawInvitation(db, { roundId: ctx.round.id, invitationId, editorId: user.id });
+      return data<ActionResult>({ ok: true, form: "invite", message: "Invitation withdrawn; the person was told and the link no longer works." });
+    }
     if (intent === "invite") {
       const parsed = parseWithZod(form, { schema: inviteSchema });
       if (parsed.status !== "success") return data<ActionResult>({ ok: false, form: "invite", error: Object.values(parsed.error ?? {}).flat().join(" ") }, { status: 400 });
@@ -63,7 +75,7 @@ export async function action(args: Route.ActionArgs) {
     return data<ActionResult>({ ok: true, form: "decision", message: "Decision released; the authors were mailed." });
   } catch (error) {
     const res = asActionError(error);
-    return data<ActionResult>({ ...res.data, form: intent === "invite" || intent === "reinvite" ? intent : "decision" }, res.init ?? undefined);
+    return data<ActionResult>({ ...res.data, form: inviting ? (intent === "reinvite" ? "reinvite" : "invite") : "decision" }, res.init ?? undefined);
   }
 }
 
@@ -98,8 +110,30 @@ export default function EditorialRound({ loaderData: d, actionData }: Route.Comp
         <h2 id="inv-h" className="text-lead">Reviewers</h2>
         <ul className="mt-2 divide-y divide-rule" data-testid="invitations">
           {d.invites.map((i) => (
-            <li key={i.id} className="py-1 text-caption">
-              {i.email} · {invitationStateLabel(i.state)} · due {new Date(i.dueAt).toISOString().slice(0, 10)}
+            <li key={i.id} className="flex flex-wrap items-center gap-3 py-1 text-caption">
+              <span>
+                {i.email} · {invitationStateLabel(i.state)} · due {new Date(i.dueAt).toISOString().slice(0, 10)}
+              </span>
+              {open && i.state === "pending" ? (
+                <Form method="post" className="flex gap-2">
+                  <input type="hidden" name="invitationId" value={i.id} />
+                  <button className="btn-quiet" type="submit" name="intent" value="resend-invitation" disabled={busy}>
+                    Send again
+                  </button>
+                  <button
+                    className="btn-quiet"
+                    type="submit"
+                    name="intent"
+                    value="withdraw-invitation"
+                    disabled={busy}
+                    onClick={(e) => {
+                      if (!window.confirm(`Withdraw the invitation to ${i.email}? They will be told, and the link will stop working.`)) e.preventDefault();
+                    }}
+                  >
+                    Withdraw
+                  </button>
+                </Form>
+              ) : null}
             </li>
           ))}
         </ul>
@@ -184,7 +218,11 @@ export default function EditorialRound({ loaderData: d, actionData }: Route.Comp
             <RichTextEditor id="letter" name="letter" label="Decision letter" initial={d.round.letter ?? undefined} />
             <div className="flex gap-3">
               <button className="btn-quiet" type="submit" name="intent" value="save-decision" disabled={busy}>Save draft</button>
-              <button className="btn" type="submit" name="intent" value="release" disabled={busy}>Release decision to the authors</button>
+              <button
+                  onClick={(e) => {
+                    if (!window.confirm("Release the decision to the authors? They are mailed the letter and the reviewers' remarks (as Reviewer 1, 2, …); it cannot be taken back.")) e.preventDefault();
+                  }}
+                  className="btn" type="submit" name="intent" value="release" disabled={busy}>Release decision to the authors</button>
             </div>
             <Notice result={actionData} form="decision" />
           </Form>

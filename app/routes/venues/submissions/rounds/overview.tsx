@@ -86,7 +86,11 @@ export default function RoundOverview({ loaderData: d, actionData, params }: Rou
             {d.canSend ? (
               <Form method="post" className="mt-3">
                 <input type="hidden" name="version" value={d.version} />
-                <button type="submit" className="btn disabled:cursor-not-allowed disabled:opacity-50" disabled={open > 0}>
+                <button
+                  onClick={(e) => {
+                    if (!window.confirm(`Send round ${params.round} to the editor? The round freezes (runs, claims, manuscript as they are now); the venue's editors and your co-authors are told.`)) e.preventDefault();
+                  }}
+                  type="submit" className="btn disabled:cursor-not-allowed disabled:opacity-50" disabled={open > 0}>
                   Send round {params.round} to the editor
                 </button>
               </Form>

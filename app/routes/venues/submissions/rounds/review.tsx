@@ -113,7 +113,11 @@ function ReportForm({ d }: { d: WorkspaceData }) {
       {locked ? null : (
         <div className="flex gap-3">
           <button className="btn-quiet" type="submit" name="intent" value="meta" disabled={fetcher.state !== "idle"}>Save</button>
-          <button className="btn" type="submit" name="intent" value="submit" disabled={fetcher.state !== "idle"}>Submit the report</button>
+          <button
+                  onClick={(e) => {
+                    if (!window.confirm("Submit the report? It locks, and the editor is told; remarks reach the authors only when the editor releases the decision.")) e.preventDefault();
+                  }}
+                  className="btn" type="submit" name="intent" value="submit" disabled={fetcher.state !== "idle"}>Submit the report</button>
         </div>
       )}
       {fetcher.data && !fetcher.data.ok ? <p role="alert" className="field-error">{fetcher.data.error}</p> : null}
