@@ -16,7 +16,8 @@ import { checkComparison } from "./rules/g-comparison.ts";
 import { checkGeometry } from "./rules/h-geometry.ts";
 import { checkRegime } from "./rules/i-regime.ts";
 import { checkBenchmark } from "./rules/j-benchmark.ts";
-import type { CheckInput } from "./schema.ts";
+import type { CheckInput, ClaimRecord, Columns, RunRecord } from "./schema.ts";
+import type { SeriesStats } from "./series.ts";
 import type { CheckOutput, Flag } from "./types.ts";
 import { parseCheckInput } from "./validate.ts";
 
@@ -28,6 +29,7 @@ export type { CheckOutput, Derived, Flag, RuleInfo, RunResult, Severity } from "
 export { rules, ruleById, FAMILIES } from "./registry.ts";
 export { DEFAULT_POLICY, resolvePolicy, policySchema, type Policy, type PolicyOverrides } from "./policy.ts";
 export { runJsonSchema, claimJsonSchema } from "./json-schema.ts";
+export type { SeriesStats, ColumnStats } from "./series.ts";
 
 /** Thrown by `check` for invalid input; `errors` carry JSON paths. */
 export class CheckInputError extends Error {
@@ -58,10 +60,40 @@ export function check(input: unknown, policy?: unknown): CheckOutput {
 
 /** Check an input that `parseCheckInput` already accepted. */
 export function checkParsed(input: CheckInput): CheckOutput {
-  const policy = resolvePolicy(input.policy);
-  const contexts = input.runs.map((run, i) =>
+  return checkContexts(input, resolvePolicy(input.policy), (run, i, policy) =>
     buildRunContext(run, i, policy, input.series?.[run.label], input.spectra?.[run.label]),
   );
+}
+
+/**
+ * Input of `checkPrepared`: stored run records (validated when stored), each series as its
+ * statistics computed once on arrival (`analyseSeries` under the policy's MSER batch) and the
+ * spectra's columns (short: one row per degree).
+ */
+export interface PreparedInput {
+  runs: RunRecord[];
+  claim?: ClaimRecord;
+  policy?: unknown;
+  seriesStats?: Record<string, SeriesStats>;
+  spectra?: Record<string, Columns>;
+}
+
+/** Checks stored runs from their stored analyses: no series is read or analysed again. */
+export function checkPrepared(input: PreparedInput): CheckOutput {
+  const p = policySchema.safeParse(input.policy ?? {});
+  if (!p.success) throw new CheckInputError(zodErrors(p.error, input.policy, ["policy"]));
+  const claim = input.claim;
+  return checkContexts({ runs: input.runs, ...(claim ? { claim } : {}) }, resolvePolicy(p.data), (run, i, policy) =>
+    buildRunContext(run, i, policy, undefined, input.spectra?.[run.label], input.seriesStats?.[run.label]),
+  );
+}
+
+function checkContexts(
+  input: { runs: RunRecord[]; claim?: ClaimRecord },
+  policy: ReturnType<typeof resolvePolicy>,
+  build: (run: RunRecord, i: number, policy: ReturnType<typeof resolvePolicy>) => RunContext,
+): CheckOutput {
+  const contexts = input.runs.map((run, i) => build(run, i, policy));
   const runs = contexts.map((ctx) => ({
     label: ctx.label,
     derived: ctx.derived,
