@@ -66,6 +66,7 @@ export const roundSchema = roundSummarySchema
     runCount: z.number().int(),
     claimCount: z.number().int(),
     flagCounts: flagCountsSchema,
+    checking: z.boolean().describe("a change to the round is still being checked: its flags describe the round before that change"),
   })
   .meta({ id: "Round" });
 

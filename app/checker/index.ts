@@ -88,6 +88,26 @@ export function checkPrepared(input: PreparedInput): CheckOutput {
   );
 }
 
+/**
+ * A whole round from stored analyses: every run's context built once, then each claim's flags
+ * against those contexts (a claim needs no run rule again). `claimFlags[i]` belongs to `claims[i]`.
+ */
+export function checkPreparedRound(input: PreparedInput & { claims: ClaimRecord[] }): { runs: CheckOutput["runs"]; claimFlags: Flag[][] } {
+  const p = policySchema.safeParse(input.policy ?? {});
+  if (!p.success) throw new CheckInputError(zodErrors(p.error, input.policy, ["policy"]));
+  const policy = resolvePolicy(p.data);
+  const contexts = input.runs.map((run, i) =>
+    buildRunContext(run, i, policy, undefined, input.spectra?.[run.label], input.seriesStats?.[run.label]),
+  );
+  const runs = contexts.map((ctx) => ({ label: ctx.label, derived: ctx.derived, flags: RUN_RULES.flatMap((rule) => rule(ctx)) }));
+  const byLabel = new Map(contexts.map((c) => [c.label, c]));
+  const claimFlags = input.claims.map((claim) => {
+    const cc: ClaimContext = { claim, runs: byLabel, policy };
+    return [...checkComparison(cc), ...checkStated(cc)];
+  });
+  return { runs, claimFlags };
+}
+
 function checkContexts(
   input: { runs: RunRecord[]; claim?: ClaimRecord },
   policy: ReturnType<typeof resolvePolicy>,

@@ -1,4 +1,4 @@
-import { and, eq, inArray, isNull, ne } from "drizzle-orm";
+import { and, eq, inArray, isNull, ne, sql } from "drizzle-orm";
 import type { Database } from "~db/client";
 import { flags, rounds, submissionMembers, submissions, user, venueMembers, venues } from "~db/schema";
 import { env } from "~/config/env.server";
@@ -21,6 +21,11 @@ export async function unansweredMismatches(db: Database, roundId: string) {
  * the editors' mail — all in one transaction, guarded by the round's version.
  */
 export async function sendRound(db: Database, opts: { roundId: string; userId: string; expectedVersion: number }) {
+  // Flags must describe what is sent: while a change is still being checked, sending waits.
+  const [seq] = await db.select({ changeSeq: rounds.changeSeq, checkedSeq: rounds.checkedSeq }).from(rounds).where(eq(rounds.id, opts.roundId));
+  if (seq && seq.checkedSeq < seq.changeSeq) {
+    throw new StateConflict("The checker is still checking your last change; its flags appear on this page in a few seconds. Send the round once they have.");
+  }
   const blocking = await unansweredMismatches(db, opts.roundId);
   if (blocking.length) {
     throw new StateConflict(
@@ -31,7 +36,7 @@ export async function sendRound(db: Database, opts: { roundId: string; userId: s
     const [round] = await tx
       .update(rounds)
       .set({ state: "sent", sentAt: new Date(), sentBy: opts.userId, version: opts.expectedVersion + 1 })
-      .where(and(eq(rounds.id, opts.roundId), eq(rounds.state, "draft"), eq(rounds.version, opts.expectedVersion)))
+      .where(and(eq(rounds.id, opts.roundId), eq(rounds.state, "draft"), eq(rounds.version, opts.expectedVersion), sql`${rounds.checkedSeq} >= ${rounds.changeSeq}`))
       .returning();
     if (!round) throw new StateConflict("This round was already sent or changed by someone else: reload the page.");
     const [sub] = await tx

@@ -30,6 +30,10 @@ export const rounds = pgTable(
     releasedAt: timestamp("released_at", { withTimezone: true }),
     /** When the flags were last recomputed, and a digest of the inputs they came from. */
     checkedAt: timestamp("checked_at", { withTimezone: true }),
+    /** Raised by every change of the round's runs, files or claims (in the change's transaction). */
+    changeSeq: integer("change_seq").notNull().default(0),
+    /** The `changeSeq` the stored flags describe; below `changeSeq` the round is "checking…". */
+    checkedSeq: integer("checked_seq").notNull().default(0),
     createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),
   },
   (t) => [uniqueIndex("rounds_submission_number_uq").on(t.submissionId, t.number)],

@@ -17,6 +17,8 @@ export async function loader(args: Route.LoaderArgs) {
       number: round!.number,
       state: round!.state,
       checkedAt: round!.checkedAt?.toISOString() ?? null,
+      // A change not yet checked by the worker: flags and numbers below describe the round before it.
+      checking: round!.checkedSeq < round!.changeSeq,
       // The decision page is the authors' view of a released decision.
       showDecision: isAuthor && round!.releasedAt !== null,
     },
@@ -64,6 +66,11 @@ export default function RoundLayout({ loaderData: d, params }: Route.ComponentPr
           </NavLink>
         ) : null}
       </nav>
+      {d.round.checking ? (
+        <p role="status" className="mt-2 text-caption text-basalt-soft" data-testid="round-checking">
+          Checking… the flags and numbers below describe the round before your last change; this page updates by itself when the check is done.
+        </p>
+      ) : null}
       <LiveRound submissionId={params.submissionId} round={d.round.number} loaded={d.round} />
       <div className="mt-4">
         <Outlet />
