@@ -59,7 +59,13 @@ export async function attachCsv(db: Database, opts: AttachOptions): Promise<{ at
         }
         hash.update(value);
         // "close" too: after a failure the stream is destroyed and will never drain.
-        if (!toStorage.write(value)) await new Promise((res) => (toStorage.once("drain", res), toStorage.once("close", res)));
+        if (!toStorage.write(value)) {
+          await new Promise<void>((res) => {
+            const done = () => (toStorage.off("drain", done), toStorage.off("close", done), res());
+            toStorage.once("drain", done);
+            toStorage.once("close", done);
+          });
+        }
         yield value;
       }
     } finally {
