@@ -1,10 +1,10 @@
 import { Links, Meta, Outlet, Scripts, ScrollRestoration } from "react-router";
 import type { Route } from "./+types/root";
-import { dbMiddleware } from "./middleware.server";
+import { dbMiddleware, sessionMiddleware } from "./middleware.server";
 import { ErrorView } from "./components/error-view";
 import "./app.css";
 
-export const middleware: Route.MiddlewareFunction[] = [dbMiddleware];
+export const middleware: Route.MiddlewareFunction[] = [dbMiddleware, sessionMiddleware];
 
 export const meta: Route.MetaFunction = () => [{ title: "Runproof" }];
 

@@ -3,6 +3,7 @@ import { data, redirect } from "react-router";
 import { submissionMembers, submissions, venueMembers } from "~db/schema";
 import type { Database } from "~db/client";
 import { dbContext } from "~/db.server";
+import { sessionUser } from "~/middleware.server";
 import { auth } from "./auth.server";
 
 type Args = { request: Request; context: { get<T>(key: import("react-router").RouterContext<T>): T } };
@@ -18,9 +19,14 @@ function isApi(request: Request) {
   return new URL(request.url).pathname.startsWith("/api/");
 }
 
+/** The signed-in person of a request: one lookup per request through the router context. */
+export async function requestUser(args: Args) {
+  return sessionUser(args);
+}
+
 /** The signed-in person, or a redirect to sign-in (401 JSON for API calls). */
 export async function requireUser(args: Args) {
-  const user = await getSessionUser(args.request);
+  const user = await requestUser(args);
   if (!user) {
     if (isApi(args.request)) {
       throw Response.json({ error: { code: "unauthenticated", message: "Sign in first." } }, { status: 401 });
