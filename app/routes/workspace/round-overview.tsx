@@ -1,6 +1,6 @@
 import { Form, redirect } from "react-router";
 import { FlagsPanel } from "~/components/workspace/flags-panel";
-import { ParameterSpaceChart } from "~/components/workspace/plots";
+import { ParameterSpaceChart } from "~/components/workspace/lazy-plots";
 import { serviceError } from "~/workspace/action-errors.server";
 import { isCorresponding, requireWorkspace } from "~/workspace/access.server";
 import { roundClaims } from "~/workspace/claims.server";

@@ -1,6 +1,6 @@
 import { data } from "react-router";
 import { FlagsPanel } from "~/components/workspace/flags-panel";
-import { SeriesChart, SpectrumChart } from "~/components/workspace/plots";
+import { SeriesChart, SpectrumChart } from "~/components/workspace/lazy-plots";
 import { RunForm } from "~/components/workspace/run-form";
 import { CsvUpload } from "~/components/workspace/upload";
 import type { RunRecord } from "~/checker/schema";

@@ -1,5 +1,5 @@
 import { data, Form, redirect } from "react-router";
-import { ParameterSpaceChart } from "~/components/workspace/plots";
+import { ParameterSpaceChart } from "~/components/workspace/lazy-plots";
 import { IssueList, RunForm } from "~/components/workspace/run-form";
 import { RunsTable } from "~/components/workspace/runs-table";
 import { serviceError } from "~/workspace/action-errors.server";
