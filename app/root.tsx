@@ -1,10 +1,12 @@
 import { Links, Meta, Outlet, Scripts, ScrollRestoration } from "react-router";
 import type { Route } from "./+types/root";
-import { dbMiddleware, sessionMiddleware } from "./middleware.server";
+import { requestMemoMiddleware } from "./access/request-memo.server";
+import { dbMiddleware } from "./middleware.server";
 import { ErrorView } from "./components/error-view";
 import "./app.css";
+import "./lib/zod-messages";
 
-export const middleware: Route.MiddlewareFunction[] = [dbMiddleware, sessionMiddleware];
+export const middleware: Route.MiddlewareFunction[] = [dbMiddleware, requestMemoMiddleware];
 
 export const meta: Route.MetaFunction = () => [{ title: "Runproof" }];
 

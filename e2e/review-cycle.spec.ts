@@ -123,7 +123,7 @@ test("editor invites two reviewers, both review, the editor decides, the authors
   await expect(editor.getByTestId("audit-log")).toContainText("decision.released");
   await expect(editor.getByTestId("audit-log")).toContainText("invitation.accepted");
 
-  const packet = await editor.request.get(`/venues/${fx.venueId}/desk/${fx.submissionId}/rounds/1/packet.pdf`);
+  const packet = await editor.request.get(`/venues/${fx.venueId}/submissions/${fx.submissionId}/rounds/1/packet.pdf`);
   expect(packet.headers()["content-type"]).toBe("application/pdf");
   const packetText = await pdfText(await packet.body());
   expect(packetText).toContain("A.pm-from-diffusivities");
@@ -162,7 +162,7 @@ test("editor invites two reviewers, both review, the editor decides, the authors
   await expect(author.getByText("We recomputed Pm from the corrected diffusivity.")).toBeVisible();
 
   // Round 2 on the desk: the editor invites round 1's reviewers again with one click.
-  await editor.goto(`/venues/${fx.venueId}/desk/${fx.submissionId}/rounds/2`);
+  await editor.goto(`/venues/${fx.venueId}/submissions/${fx.submissionId}/rounds/2/desk`);
   await editor.getByRole("button", { name: "Invite round 1's reviewers again" }).click();
   await expect(editor.getByRole("status")).toContainText(demo("reviewer1").email);
   await expect(editor.getByTestId("invitations")).toContainText(demo("reviewer2").email);

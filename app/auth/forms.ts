@@ -1,3 +1,4 @@
+import { href } from "react-router";
 import { z } from "zod";
 import { parseOrcid } from "~/lib/orcid";
 
@@ -49,5 +50,5 @@ export const profileSchema = z.object({
 
 /** Only same-site paths may follow sign-in; anything else falls back to the dashboard. */
 export function safeNext(next: string | null | undefined) {
-  return next && next.startsWith("/") && !next.startsWith("//") ? next : "/dashboard";
+  return next && next.startsWith("/") && !next.startsWith("//") ? next : href("/dashboard");
 }

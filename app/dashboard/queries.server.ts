@@ -1,6 +1,6 @@
-import { and, count, desc, eq, inArray, lt, or, type SQL } from "drizzle-orm";
+import { and, count, desc, eq, inArray, lt, or, sql, type SQL } from "drizzle-orm";
 import type { Database } from "~db/client";
-import { submissionMembers, submissions, venueMembers, venues } from "~db/schema";
+import { rounds, submissionMembers, submissions, venueMembers, venues } from "~db/schema";
 
 export type DashboardItem = { id: string; title: string; stage: string; venueName: string; venueId: string };
 /** One page of a dashboard list: its items, how many there are in all, and the next page's cursor. */
@@ -10,6 +10,9 @@ export type DashboardList = { items: DashboardItem[]; total: number; next: strin
 export const DASHBOARD_PAGE_SIZE = 20;
 export const DASHBOARD_LISTS = ["authored", "coAuthored", "reviewing", "editing"] as const;
 export type DashboardListName = (typeof DASHBOARD_LISTS)[number];
+
+/** Authors see their working title; editors and reviewers the title as last sent. */
+const sentTitle = sql<string>`coalesce((select ${rounds.sentTitle} from ${rounds} where ${rounds.submissionId} = ${submissions.id} and ${rounds.state} <> 'draft' order by ${rounds.number} desc limit 1), ${submissions.title})`;
 
 const itemColumns = {
   id: submissions.id,
@@ -45,7 +48,7 @@ function byMembership(db: Database, userId: string, role: "author" | "co-author"
   const where = and(eq(submissionMembers.userId, userId), eq(submissionMembers.role, role));
   return page(
     db
-      .select(itemColumns)
+      .select(role === "reviewer" ? { ...itemColumns, title: sentTitle } : itemColumns)
       .from(submissionMembers)
       .innerJoin(submissions, eq(submissions.id, submissionMembers.submissionId))
       .innerJoin(venues, eq(venues.id, submissions.venueId))
@@ -75,7 +78,7 @@ export async function dashboardFor(db: Database, userId: string, cursors: Partia
     venueIds.length
       ? page(
           db
-            .select(itemColumns)
+            .select({ ...itemColumns, title: sentTitle })
             .from(submissions)
             .innerJoin(venues, eq(venues.id, submissions.venueId))
             .where(and(editingWhere, after(cursors.editing ?? null)))

@@ -1,11 +1,12 @@
-import { getFormProps, getSelectProps, useForm } from "@conform-to/react";
+import { getFormProps, getSelectProps } from "@conform-to/react";
+import { useCheckedForm } from "~/components/checked-form";
 import { getZodConstraint, parseWithZod } from "@conform-to/zod/v4";
 import { eq } from "drizzle-orm";
 import { data, Form } from "react-router";
 import { venueMembers, venues } from "~db/schema";
 import { addEditorSchema, createVenueSchema } from "~/admin/forms";
 import { createVenue, findUserIdByEmail, listVenues } from "~/admin/venues.server";
-import { requireAdmin } from "~/auth/guards.server";
+import { requireAdmin } from "~/access/session.server";
 import { FormErrors, TextField } from "~/components/field";
 import type { Route } from "./+types/venues";
 
@@ -53,11 +54,10 @@ export async function action(args: Route.ActionArgs) {
 }
 
 export default function AdminVenues({ loaderData, actionData }: Route.ComponentProps) {
-  const [form, fields] = useForm({
+  const [form, fields] = useCheckedForm({
     lastResult: actionData?.form === "create" ? actionData.result : undefined,
     constraint: getZodConstraint(createVenueSchema),
     onValidate: ({ formData }) => parseWithZod(formData, { schema: createVenueSchema }),
-    shouldRevalidate: "onBlur",
     defaultValue: { blinding: "single" },
   });
   return (

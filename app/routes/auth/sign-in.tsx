@@ -1,17 +1,18 @@
-import { getFormProps, useForm } from "@conform-to/react";
+import { getFormProps } from "@conform-to/react";
+import { useCheckedForm } from "~/components/checked-form";
 import { getZodConstraint, parseWithZod } from "@conform-to/zod/v4";
-import { data, Form, Link, redirect, useSearchParams } from "react-router";
+import { data, Form, Link, redirect, useSearchParams, href } from "react-router";
 import { auth } from "~/auth/auth.server";
 import { authErrorOf, forwardCookies } from "~/auth/cookies.server";
 import { safeNext, signInSchema } from "~/auth/forms";
-import { getSessionUser } from "~/auth/guards.server";
+import { sessionUser } from "~/access/session.server";
 import { FormErrors, TextField } from "~/components/field";
 import type { Route } from "./+types/sign-in";
 
 export const meta: Route.MetaFunction = () => [{ title: "Sign in · Runproof" }];
 
-export async function loader({ request }: Route.LoaderArgs) {
-  if (await getSessionUser(request)) throw redirect(safeNext(new URL(request.url).searchParams.get("next")));
+export async function loader({ request, context }: Route.LoaderArgs) {
+  if (await sessionUser({ request, context })) throw redirect(safeNext(new URL(request.url).searchParams.get("next")));
   return null;
 }
 
@@ -45,11 +46,10 @@ export async function action({ request }: Route.ActionArgs) {
 
 export default function SignIn({ actionData }: Route.ComponentProps) {
   const [params] = useSearchParams();
-  const [form, fields] = useForm({
+  const [form, fields] = useCheckedForm({
     lastResult: actionData?.result,
     constraint: getZodConstraint(signInSchema),
     onValidate: ({ formData }) => parseWithZod(formData, { schema: signInSchema }),
-    shouldRevalidate: "onBlur",
   });
   return (
     <main className="mx-auto max-w-md p-gutter">
@@ -75,7 +75,7 @@ export default function SignIn({ actionData }: Route.ComponentProps) {
         <FormErrors errors={form.errors} id={form.errorId} />
       </Form>
       <p className="mt-6 text-caption">
-        <Link to="/forgot-password">Forgot your password?</Link> · <Link to="/sign-up">Create an account</Link>
+        <Link to={href("/forgot-password")}>Forgot your password?</Link> · <Link to={href("/sign-up")}>Create an account</Link>
       </p>
     </main>
   );
