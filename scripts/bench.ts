@@ -171,7 +171,7 @@ async function main() {
       ["health (floor)", "/healthz", undefined],
       ["dashboard", "/dashboard", editorCookie],
       ["editor's desk", `/venues/${ctx.venueId}/desk`, editorCookie],
-      ["editor's round page", `/venues/${ctx.venueId}/desk/${ctx.bulkId}/rounds/1`, editorCookie],
+      ["editor's round page", `/venues/${ctx.venueId}/submissions/${ctx.bulkId}/rounds/1/desk`, editorCookie],
       ["heavy round overview", round, author],
       ["heavy round runs", `${round}/runs`, author],
       ["run with a 200k-row series", `${round}/runs/${ctx.runIds[0]}`, author],
