@@ -74,9 +74,11 @@ export default function Details({ loaderData: { s, people, canEdit }, actionData
           <TextField meta={fields.keywords} label="Keywords" />
           <TextArea meta={fields.availability} label="Data and code availability" rows={3} textarea={getTextareaProps(fields.availability)} />
           <TextField meta={fields.dois} label="DOIs" hint="e.g. 10.5281/zenodo.1234567" />
-          <button type="submit" className="btn self-start">
-            Save the details
-          </button>
+          {canEdit ? (
+            <button type="submit" className="btn self-start">
+              Save the details
+            </button>
+          ) : null}
           </fieldset>
         </Form>
       </section>
@@ -96,7 +98,9 @@ export default function Details({ loaderData: { s, people, canEdit }, actionData
             </li>
           ))}
         </ol>
-        <h3 className="mt-5 font-semibold">Invite a co-author</h3>
+        {canEdit ? (
+          <>
+          <h3 className="mt-5 font-semibold">Invite a co-author</h3>
         <Form method="post" {...getFormProps(invite)} className="mt-2">
           <fieldset disabled={!canEdit} className="flex flex-col gap-3">
           <input type="hidden" name="intent" value="invite" />
@@ -120,6 +124,8 @@ export default function Details({ loaderData: { s, people, canEdit }, actionData
           </button>
           </fieldset>
         </Form>
+          </>
+        ) : null}
       </section>
     </div>
   );
