@@ -1,4 +1,7 @@
-/** Streaming CSV: feed chunks (e.g. from a file or an upload) line by line into typed columns. */
+/**
+ * Streaming CSV: feed chunks (e.g. from a file or an upload) line by line into typed columns.
+ * Chunks are pulled with for-await, so no stream listener is added per chunk (none can pile up).
+ */
 import { ColumnBuilder, CsvLineReader, type CsvKind, type TypedColumns } from "./csv.ts";
 import type { Columns } from "./schema.ts";
 

@@ -37,30 +37,45 @@ export class ColumnBuilder {
 
   add(record: string[], line: number): void {
     if (this.names.length === 0) return this.header(record, line);
-    const width = this.names.length;
-    if (record.length !== width) {
-      throw new CsvFormatError(`expected ${width} values (${this.names.join(", ")}), found ${record.length}`, line);
+    const r = this.startRow(record.length, line);
+    for (let i = 0; i < record.length; i++) {
+      const cell = record[i]!;
+      if (cell === "") throw new CsvFormatError(`column ${this.names[i]} is empty`, line);
+      const v = Number(cell);
+      if (!Number.isFinite(v)) throw new CsvFormatError(`column ${this.names[i]} is not a number ('${cell}')`, line);
+      this.put(r, i, v, cell, line);
+    }
+    this.rows = r + 1;
+  }
+
+  /** A row already read as numbers (e.g. Fortran columns), checked like a CSV row. */
+  addNumbers(values: number[], cells: string[], line: number): void {
+    const r = this.startRow(values.length, line);
+    for (let i = 0; i < values.length; i++) this.put(r, i, values[i]!, cells[i] ?? String(values[i]), line);
+    this.rows = r + 1;
+  }
+
+  /** Checks a row's width and the row limit, makes room, and returns the row's index. */
+  private startRow(width: number, line: number): number {
+    if (width !== this.names.length) {
+      throw new CsvFormatError(`expected ${this.names.length} values (${this.names.join(", ")}), found ${width}`, line);
     }
     if (this.rows >= CSV_LIMITS.rows) {
       throw new CsvFormatError(`the ${this.kind} has more than ${CSV_LIMITS.rows} rows; thin it (e.g. every n-th row) and upload again`, line);
     }
     if (this.rows === this.cols[0]!.length) this.grow();
-    const r = this.rows;
+    return this.rows;
+  }
+
+  private put(r: number, i: number, v: number, cell: string, line: number): void {
+    const name = this.names[i]!;
+    const col = this.cols[i]!;
     const spectrum = this.kind === "spectrum";
-    for (let i = 0; i < width; i++) {
-      const cell = record[i]!;
-      const name = this.names[i]!;
-      if (cell === "") throw new CsvFormatError(`column ${name} is empty`, line);
-      const v = Number(cell);
-      if (!Number.isFinite(v)) throw new CsvFormatError(`column ${name} is not a number ('${cell}')`, line);
-      const col = this.cols[i]!;
-      if (i === 0) {
-        if (r > 0 && !(v > col[r - 1]!)) throw new CsvFormatError(`column ${name} must increase (${cell} after ${col[r - 1]})`, line);
-        if (spectrum && !(Number.isInteger(v) && v >= 0)) throw new CsvFormatError(`column l must hold non-negative integer degrees ('${cell}')`, line);
-      } else if (spectrum && v < 0) throw new CsvFormatError(`column ${name} has a negative energy ('${cell}')`, line);
-      col[r] = v;
-    }
-    this.rows = r + 1;
+    if (i === 0) {
+      if (r > 0 && !(v > col[r - 1]!)) throw new CsvFormatError(`column ${name} must increase (${cell} after ${col[r - 1]})`, line);
+      if (spectrum && !(Number.isInteger(v) && v >= 0)) throw new CsvFormatError(`column l must hold non-negative integer degrees ('${cell}')`, line);
+    } else if (spectrum && v < 0) throw new CsvFormatError(`column ${name} has a negative energy ('${cell}')`, line);
+    col[r] = v;
   }
 
   private grow() {

@@ -2,7 +2,7 @@ import { createHash } from "node:crypto";
 import { and, eq, inArray, isNull, notInArray, or, sql } from "drizzle-orm";
 import type { Database } from "~db/client";
 import { attachments, claims, flags, roundRuns, rounds, runChecks, storedFiles, submissions, venues, type AttachmentAnalysis } from "~db/schema";
-import { checkPreparedRound, policySchema, resolvePolicy, type SeriesStats } from "~/checker";
+import { CheckInputError, checkPreparedRound, ClaimCheckError, policySchema, resolvePolicy, type SeriesStats } from "~/checker";
 import { parseCsvStreamTyped } from "~/checker/csv-stream";
 import type { ClaimRecord, Columns, RunRecord } from "~/checker/schema";
 import type { Derived, Flag } from "~/checker/types";
@@ -57,6 +57,40 @@ const needsAnalysis = (a: AttachmentAnalysis | null, kind: string, batch: number
 
 const num = (v: number | undefined) => (v === undefined || !Number.isFinite(v) ? null : v);
 
+/** A stored file that could not be analysed again, named by its run's label. */
+class FileAnalysisFailure extends Error {
+  constructor(
+    readonly run: string,
+    readonly kind: string,
+    readonly inner: unknown,
+  ) {
+    super(`the ${kind} file of run "${run}"`);
+  }
+}
+
+/** Why a check failed, in words a person can act on: runs by label, never by index. */
+export function describeCheckFailure(e: unknown, runLabels: string[], claimNames: string[] = []): string {
+  const claim = e instanceof ClaimCheckError ? (claimNames[e.claimIndex] ?? `#${e.claimIndex + 1}`) : null;
+  const where = claim !== null ? `In the claim "${claim}": ` : e instanceof FileAnalysisFailure ? `Reading ${e.message}: ` : "";
+  const inner = e instanceof ClaimCheckError || e instanceof FileAnalysisFailure ? e.inner : e;
+  const named = (text: string) =>
+    text
+      .replace(/\bruns\[(\d+)\](\.)?/g, (_m, i: string, dot?: string) => `run "${runLabels[Number(i)] ?? `#${Number(i) + 1}`}"${dot ? ", " : ""}`)
+      .replace(/\bclaim\./g, "");
+  if (inner instanceof CheckInputError) {
+    const list = inner.errors.slice(0, 5).map((x) => `${named(x.path)}: ${named(x.message)}`);
+    const more = inner.errors.length > 5 ? ` (and ${inner.errors.length - 5} more)` : "";
+    return `${where}${list.join("; ")}${more}. Correct it and the round is checked again.`;
+  }
+  const msg = inner instanceof Error ? inner.message : String(inner);
+  return `${where}the checker stopped with an internal error (${msg.slice(0, 300)}). Change or remove the last edit, or tell the venue's editors.`;
+}
+
+/** How people know a claim: its figure, else its title. */
+const claimName = (c: { figure: string | null; record: unknown }) => c.figure || (c.record as { title?: string } | null)?.title || "untitled claim";
+
+const isInputProblem = (e: unknown) => e instanceof CheckInputError || (e instanceof ClaimCheckError && e.inner instanceof CheckInputError);
+
 /**
  * Brings a round's stored checks up to date, incrementally and idempotently:
  * - files without an analysis (or analysed under another MSER batch) are analysed once;
@@ -64,6 +98,10 @@ const num = (v: number | undefined) => (v === undefined || !Number.isFinite(v) ?
  * - a claim is re-checked only when it or a run it names changed;
  * - everything is written in one transaction, with authors' answers kept by fingerprint.
  * Running it twice does nothing the second time. The check job calls it; so do the seed and tests.
+ * When the check fails (a stored record the checker refuses, a file that cannot be read, an
+ * internal error), the round records why (`checkError`) and its flags are left untouched: pages
+ * show them as out of date, never as current, and the round cannot be sent. Nothing is marked
+ * checked, so the next check tries the same runs and claims again; a good check clears the error.
  */
 export async function recheckRound(db: Database, roundId: string) {
   const [round] = await db
@@ -72,7 +110,7 @@ export async function recheckRound(db: Database, roundId: string) {
     .innerJoin(submissions, eq(submissions.id, rounds.submissionId))
     .innerJoin(venues, eq(venues.id, submissions.venueId))
     .where(eq(rounds.id, roundId));
-  if (!round) return { runsChecked: 0, claimsChecked: 0 };
+  if (!round) return { runsChecked: 0, claimsChecked: 0, checkError: null };
   const parsedPolicy = policySchema.safeParse(round.policy ?? {});
   const policyInput = parsedPolicy.success ? parsedPolicy.data : {};
   const batch = resolvePolicy(policyInput).mserBatch;
@@ -91,9 +129,27 @@ export async function recheckRound(db: Database, roundId: string) {
   const seriesStats: Record<string, SeriesStats> = {};
   const spectra: Record<string, Columns> = {};
   const filesOf = new Map<string, string[]>();
+  const failed = async (e: unknown, claimNames: string[] = []) => {
+    if (!isInputProblem(e)) console.error(`checks: round ${roundId} could not be checked:`, e);
+    const checkError = describeCheckFailure(e, runRows.map((r) => r.label), claimNames);
+    await db.transaction(async (tx) => {
+      await tx.execute(sql`select pg_advisory_xact_lock(hashtext(${`recheck:${roundId}`}))`);
+      // The check ran to its end (a failure): the round is no longer "checking", its flags are out of date.
+      await tx
+        .update(rounds)
+        .set({ checkError, checkedSeq: sql`greatest(${rounds.checkedSeq}, ${round.changeSeq})`, checkedAt: new Date() })
+        .where(eq(rounds.id, roundId));
+    });
+    return { runsChecked: 0, claimsChecked: 0, checkError };
+  };
   for (const f of files) {
-    const analysis = needsAnalysis(f.analysis, f.kind, batch) ? await analyseStored(db, f, batch) : f.analysis!;
     const label = labelOf.get(f.runVersionId)!;
+    let analysis: AttachmentAnalysis;
+    try {
+      analysis = needsAnalysis(f.analysis, f.kind, batch) ? await analyseStored(db, f, batch) : f.analysis!;
+    } catch (e) {
+      return failed(new FileAnalysisFailure(label, f.kind, e));
+    }
     if (analysis.kind === "series" && analysis.stats) seriesStats[label] = analysis.stats as SeriesStats;
     if (analysis.kind === "spectrum") spectra[label] = analysis.columns;
     filesOf.set(f.runVersionId, [...(filesOf.get(f.runVersionId) ?? []), `${f.id}:${analysis.kind === "series" ? analysis.batch : ""}`].sort());
@@ -103,7 +159,7 @@ export async function recheckRound(db: Database, roundId: string) {
   // A run's flags in this round are current when the round's pointer carries the run's inputs key.
   const changedRuns = runRows.filter((r) => r.checkedKey !== runKey.get(r.label));
 
-  const claimRows = await db.select({ id: claims.id, lineage: claims.lineage, record: claims.record, version: claims.version, checkedKey: claims.checkedKey }).from(claims).where(eq(claims.roundId, roundId));
+  const claimRows = await db.select({ id: claims.id, lineage: claims.lineage, figure: claims.figure, record: claims.record, version: claims.version, checkedKey: claims.checkedKey }).from(claims).where(eq(claims.roundId, roundId));
   const claimKey = (c: (typeof claimRows)[number]) => {
     const named = ((c.record as ClaimRecord).runs ?? []).map((r) => r.label);
     return digest(policyKey, c.id, c.version, named.map((l) => runKey.get(l) ?? `missing:${l}`));
@@ -119,8 +175,8 @@ export async function recheckRound(db: Database, roundId: string) {
       runResults = out.runs;
       claimFlags = out.claimFlags;
     } catch (e) {
-      // Records were validated when stored; a stricter checker later leaves them unchecked rather than failing the job.
-      console.warn(`checks: round ${roundId} could not be checked:`, e instanceof Error ? e.message : e);
+      // Records were validated when stored; a stricter checker may refuse one later: the round says why.
+      return failed(e, changedClaims.map(claimName));
     }
   }
   const resultOf = new Map(runResults.map((r) => [r.label, r]));
@@ -171,10 +227,10 @@ export async function recheckRound(db: Database, roundId: string) {
     for (const c of changedClaims) await tx.update(claims).set({ checkedKey: claimKey(c) }).where(eq(claims.id, c.id));
     await tx
       .update(rounds)
-      .set({ checkedSeq: sql`greatest(${rounds.checkedSeq}, ${round.changeSeq})`, checkedAt: new Date() })
+      .set({ checkedSeq: sql`greatest(${rounds.checkedSeq}, ${round.changeSeq})`, checkedAt: new Date(), checkError: null })
       .where(eq(rounds.id, roundId));
   });
-  return { runsChecked: changedRuns.length, claimsChecked: changedClaims.length };
+  return { runsChecked: changedRuns.length, claimsChecked: changedClaims.length, checkError: null };
 }
 
 /** Rounds whose stored checks are behind their last change (the worker's safety sweep). */

@@ -2,6 +2,8 @@ import { and, asc, desc, eq, inArray, sql, type SQL } from "drizzle-orm";
 import type { Database } from "~db/client";
 import { attachments, flags, roundRuns, runChecks, runs, runVersions, storedFiles } from "~db/schema";
 import type { RunRecord } from "~/checker/schema";
+import { seriesSummary } from "~/checker/derive";
+import type { SeriesStats } from "~/checker/series";
 import type { RunRow, SeriesPlot, SpectrumPlot } from "./views";
 
 export type { RunRow, SeriesPlot, SpectrumPlot };
@@ -125,8 +127,11 @@ function plotsOf(rows: PlotFileRow[], record: RunRecord) {
       continue;
     }
     if (a.kind === "series" && a.analysis.kind === "series") {
-      const stats = a.analysis.stats;
-      series = { columns: a.plot.columns, points: a.plot.points, tStart: stats?.tStart ?? 0, windowStart: stats?.windowStart ?? 0, tEnd: stats?.tEnd ?? 0, rows: a.rowCount };
+      const stats = a.analysis.stats as SeriesStats | null | undefined;
+      series = {
+        columns: a.plot.columns, points: a.plot.points, tStart: stats?.tStart ?? 0, windowStart: stats?.windowStart ?? 0, tEnd: stats?.tEnd ?? 0, rows: a.rowCount,
+        ...(stats ? { stats: seriesSummary(stats) } : {}),
+      };
     } else if (a.analysis.kind === "spectrum") {
       const cols = a.analysis.columns;
       const l = cols.l ?? [];

@@ -38,6 +38,11 @@ export const rounds = pgTable(
     /** The `changeSeq` the stored flags describe; below `changeSeq` the round is "checking…". */
     checkedSeq: integer("checked_seq").notNull().default(0),
     /**
+     * Why the last re-check failed (null when it succeeded). While set, the stored flags are
+     * from an earlier check and are shown as out of date, and the round cannot be sent.
+     */
+    checkError: text("check_error"),
+    /**
      * The manuscript as sent in this round: title, abstract, keywords, file and contributor list,
      * copied when the round is sent. Everyone but the authors reads these, so a draft's edits
      * never reach the editor or reviewers before the next round is sent.

@@ -59,7 +59,7 @@ describe("checks stored once, incrementally", () => {
     expect((await roundCheckState(db, ctx.roundId)).checking).toBe(true);
     const rows = await roundRunRows(db, ctx.roundId);
     expect(rows.map((r) => [r.label, r.checking, r.Pm])).toEqual([["R1", true, null], ["R2", true, null]]);
-    expect(await recheckRound(db, ctx.roundId)).toEqual({ runsChecked: 2, claimsChecked: 2 });
+    expect(await recheckRound(db, ctx.roundId)).toEqual({ runsChecked: 2, claimsChecked: 2, checkError: null });
     expect((await roundCheckState(db, ctx.roundId)).checking).toBe(false);
     const after = await roundRunRows(db, ctx.roundId);
     expect(after.map((r) => [r.label, r.checking, r.Pm, r.mismatch > 0])).toEqual([["R1", false, 2, true], ["R2", false, 2, true]]);
@@ -67,7 +67,7 @@ describe("checks stored once, incrementally", () => {
 
   it("a second pass finds nothing to do and leaves the flags as they are", async () => {
     const before = await db.select({ id: flags.id }).from(flags).where(eq(flags.roundId, ctx.roundId));
-    expect(await recheckRound(db, ctx.roundId)).toEqual({ runsChecked: 0, claimsChecked: 0 });
+    expect(await recheckRound(db, ctx.roundId)).toEqual({ runsChecked: 0, claimsChecked: 0, checkError: null });
     const again = await db.select({ id: flags.id }).from(flags).where(eq(flags.roundId, ctx.roundId));
     expect(again.map((f) => f.id).sort()).toEqual(before.map((f) => f.id).sort());
   });
@@ -75,7 +75,7 @@ describe("checks stored once, incrementally", () => {
   it("a run change re-checks that run and only the claims that name it", async () => {
     const [r1] = (await roundRunList(db, ctx.roundId)).filter((r) => r.label === "R1");
     await editRun(db, { runId: r1!.runId, roundId: ctx.roundId, input: run("R1", 1.25), origin: "form", userId: ctx.userId, expectedVersion: 1 });
-    expect(await recheckRound(db, ctx.roundId)).toEqual({ runsChecked: 1, claimsChecked: 1 });
+    expect(await recheckRound(db, ctx.roundId)).toEqual({ runsChecked: 1, claimsChecked: 1, checkError: null });
     expect(await pmFlags("R1")).toHaveLength(0);
     expect(await pmFlags("R2")).toHaveLength(1);
   });
@@ -111,6 +111,6 @@ describe("the check job (pg-boss, as `npm run worker` runs it)", () => {
     // One job for this round ran (stately queue, singleton key = round id), and it completed.
     const jobs = await sql`select state from pgboss.job where name = ${QUEUES.recheck} and singleton_key = ${ctx.roundId}`;
     expect(jobs.map((j) => j.state)).toEqual(["completed"]);
-    expect(await recheckRound(db, ctx.roundId)).toEqual({ runsChecked: 0, claimsChecked: 0 });
+    expect(await recheckRound(db, ctx.roundId)).toEqual({ runsChecked: 0, claimsChecked: 0, checkError: null });
   });
 });
