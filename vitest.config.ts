@@ -15,6 +15,7 @@ export default defineConfig({
     testTimeout: 20_000,
     fileParallelism: false,
     // Tests drive delivery themselves; a background job runner in the test process would race them.
-    env: { OUTBOX_WORKER: "false" },
+    // Round checks run where a test calls them (or starts the job runner itself); nothing is queued.
+    env: { OUTBOX_WORKER: "false", JOBS_QUEUE: "false" },
   },
 });

@@ -1,10 +1,10 @@
 import { createContext } from "react-router";
 import { createDatabase, type Database } from "~db/client";
 import { env } from "~/config/env.server";
-import { startJobs } from "~/jobs/boss.server";
+import { stopJobSender } from "~/jobs/recheck.server";
 
 // Kept on globalThis so the dev server's module reloads do not open a new pool each time.
-const g = globalThis as unknown as { __runproofDb?: ReturnType<typeof createDatabase>; __runproofWorker?: boolean; __runproofBoss?: Promise<{ stop(o?: object): Promise<void> } | null> };
+const g = globalThis as unknown as { __runproofDb?: ReturnType<typeof createDatabase>; __runproofExit?: boolean };
 g.__runproofDb ??= createDatabase(env.DATABASE_URL);
 
 export const db: Database = g.__runproofDb.db;
@@ -13,28 +13,16 @@ export const sqlClient = g.__runproofDb.sql;
 /** The database handle as loaders and actions receive it: `context.get(dbContext)`. */
 export const dbContext = createContext<Database>();
 
-if (env.OUTBOX_WORKER && !g.__runproofWorker) {
-  g.__runproofWorker = true;
-  // pg-boss runs outbox delivery, reminders and digests (app/jobs/boss.server.ts).
-  g.__runproofBoss = startJobs(db, {
-    databaseUrl: env.DATABASE_URL,
-    smtpHost: env.SMTP_HOST,
-    smtpPort: env.SMTP_PORT,
-    from: env.MAIL_FROM,
-    pollMs: env.OUTBOX_POLL_MS,
-  }).catch((error) => {
-    console.warn("jobs: could not start:", error instanceof Error ? error.message : error);
-    return null;
-  });
-}
-
-for (const signal of ["SIGTERM", "SIGINT"] as const) {
-  process.once(signal, () => {
-    const boss = g.__runproofBoss ?? Promise.resolve(null);
-    void boss
-      .then((b) => b?.stop({ graceful: true, timeout: 5000 }))
-      .catch(() => {})
-      .then(() => sqlClient.end({ timeout: 5 }))
-      .finally(() => process.exit(0));
-  });
+// The web process runs no jobs: outbox delivery, reminders, digests and round checks run in
+// `npm run worker` processes (app/jobs/boss.server.ts). It only queues round checks.
+if (!g.__runproofExit) {
+  g.__runproofExit = true;
+  for (const signal of ["SIGTERM", "SIGINT"] as const) {
+    process.once(signal, () => {
+      void stopJobSender()
+        .catch(() => {})
+        .then(() => sqlClient.end({ timeout: 5 }))
+        .finally(() => process.exit(0));
+    });
+  }
 }

@@ -4,7 +4,9 @@ import { readFileSync } from "node:fs";
 import { dirname, join } from "node:path";
 import { fileURLToPath } from "node:url";
 import { eq } from "drizzle-orm";
-import { parseCsv } from "../app/checker/csv";
+import { parseCsvTyped } from "../app/checker/csv";
+import { resolvePolicy } from "../app/checker/policy";
+import { analyseColumns } from "../app/workspace/attachment-analysis";
 import { runSchema } from "../app/checker/schema";
 import type { Env } from "../app/config/env-schema";
 import { createS3Storage, s3SettingsFromEnv } from "../app/storage/s3";
@@ -33,7 +35,7 @@ export async function seedDemoRound(tx: Tx, env: Env, opts: { submissionId: stri
     for (const kind of ["series", "spectrum"] as const) {
       const filename = `${record.label}-${kind}.csv`;
       const text = readFileSync(join(demoDir, filename), "utf8");
-      const data = parseCsv(text, kind);
+      const data = parseCsvTyped(text, kind);
       const key = `demo/${opts.submissionId}/${filename}`;
       await storage.put(key, text, "text/csv");
       const [file] = await tx
@@ -42,7 +44,7 @@ export async function seedDemoRound(tx: Tx, env: Env, opts: { submissionId: stri
         .onConflictDoUpdate({ target: storedFiles.key, set: { size: Buffer.byteLength(text) } })
         .returning({ id: storedFiles.id });
       const columns = Object.keys(data);
-      await tx.insert(attachments).values({ runVersionId: version.id, kind, fileId: file!.id, columns, rowCount: data[columns[0]!]!.length, data });
+      await tx.insert(attachments).values({ runVersionId: version.id, kind, fileId: file!.id, columns, rowCount: data[columns[0]!]!.length, ...analyseColumns(kind, data, resolvePolicy().mserBatch) });
     }
   }
   for (const claim of demoClaims) await createClaim(tx, roundId, claim);

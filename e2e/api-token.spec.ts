@@ -47,7 +47,9 @@ test("a token made in the browser pushes a run and its series; the open round pa
   const created = await fetch(`${api}/runs`, { method: "POST", headers: { ...auth, "content-type": "application/json" }, body: example("runs/strat-B.json") });
   expect(created.status, await created.clone().text()).toBe(201);
   const run = (await created.json()) as { id: string; flags: { rule: string }[] };
-  expect(run.flags.map((f) => f.rule)).toContain("A.pm-from-diffusivities");
+  // The API answers at once; a job worker checks the round and the run's flags land shortly after.
+  const ruleIds = async () => ((await (await fetch(`${api}/runs/${run.id}`, { headers: auth })).json()) as { flags: { rule: string }[] }).flags.map((f) => f.rule);
+  await expect.poll(ruleIds, { timeout: 15_000 }).toContain("A.pm-from-diffusivities");
   const series = await fetch(`${api}/runs/${run.id}/attachments?kind=series&filename=strat-B.csv`, {
     method: "POST",
     headers: { ...auth, "content-type": "text/csv" },

@@ -25,8 +25,17 @@ node_modules/.bin/tsx database/seed.ts
 node_modules/.bin/react-router build >/dev/null
 
 node_modules/.bin/tsx scripts/print-welcome.ts
+# The web server and one job worker (round checks, mail, reminders, digests); more workers can
+# be started beside them with `npm run worker`.
 PORT="${PORT:-3000}" HOST=127.0.0.1 NODE_ENV=production node ./node_modules/@react-router/serve/bin.js build/server/index.js &
 server=$!
-# A background job of a script ignores Ctrl-C, so the script passes INT and TERM on as one TERM.
-trap 'kill -TERM "$server" 2>/dev/null || true' INT TERM
-while kill -0 "$server" 2>/dev/null; do wait "$server" || true; done
+NODE_ENV=production node --max-old-space-size=768 --import tsx scripts/worker.ts &
+worker=$!
+# A background job of a script ignores Ctrl-C, so the script passes INT and TERM on as one TERM
+# to each; when either process ends, the other is stopped too.
+stop_both() { kill -TERM "$server" "$worker" 2>/dev/null || true; }
+trap stop_both INT TERM
+while kill -0 "$server" 2>/dev/null && kill -0 "$worker" 2>/dev/null; do wait -n "$server" "$worker" || true; done
+stop_both
+wait "$server" 2>/dev/null || true
+wait "$worker" 2>/dev/null || true

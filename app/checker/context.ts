@@ -28,11 +28,13 @@ export function buildRunContext(
   policy: Policy,
   seriesColumns?: Columns,
   spectrum?: Columns,
+  /** the series' statistics computed earlier (stored at upload under the same MSER batch) */
+  seriesStats?: SeriesStats,
 ): RunContext {
   const path = `runs[${index}]`;
   const { values: material } = materialToSI(run.material, `${path}.material`);
   const recomputed = recompute(material, run);
-  const series = seriesColumns ? analyseSeries(seriesColumns, policy.mserBatch) : undefined;
+  const series = seriesStats ?? (seriesColumns ? analyseSeries(seriesColumns, policy.mserBatch) : undefined);
   const given = givenValues(run, series);
   const derived = derive(run, recomputed, given, series, policy, material.outerRadius);
   const ctx: RunContext = {

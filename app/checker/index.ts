@@ -17,7 +17,8 @@ import { checkGeometry } from "./rules/h-geometry.ts";
 import { checkRegime } from "./rules/i-regime.ts";
 import { checkBenchmark } from "./rules/j-benchmark.ts";
 import { checkRatioScaling } from "./rules/k-ratio-scaling.ts";
-import type { CheckInput } from "./schema.ts";
+import { claimSchema, type CheckInput, type ClaimRecord, type Columns, type RunRecord } from "./schema.ts";
+import type { SeriesStats } from "./series.ts";
 import type { CheckOutput, Flag } from "./types.ts";
 import { parseCheckInput } from "./validate.ts";
 
@@ -29,6 +30,7 @@ export type { CheckOutput, Derived, Flag, RuleInfo, RunResult, Severity } from "
 export { rules, ruleById, FAMILIES } from "./registry.ts";
 export { DEFAULT_POLICY, resolvePolicy, policySchema, type Policy, type PolicyOverrides } from "./policy.ts";
 export { runJsonSchema, claimJsonSchema } from "./json-schema.ts";
+export type { SeriesStats, ColumnStats } from "./series.ts";
 
 /** Thrown by `check` for invalid input; `errors` carry JSON paths. */
 export class CheckInputError extends Error {
@@ -43,6 +45,9 @@ export class CheckInputError extends Error {
 const RUN_RULES: Array<(c: RunContext) => Flag[]> = [
   checkMaterial, checkIdentities, checkRunLength, checkSeries, checkResolution, checkGeometry, checkRegime, checkBenchmark,
 ];
+
+/** A claim's own rules, against run contexts built once. */
+const claimRules = (cc: ClaimContext): Flag[] => [...checkComparison(cc), ...checkStated(cc), ...checkRatioScaling(cc)];
 
 /** Validate and check. `policy` (optional) overrides `input.policy`. Throws CheckInputError. */
 export function check(input: unknown, policy?: unknown): CheckOutput {
@@ -59,10 +64,81 @@ export function check(input: unknown, policy?: unknown): CheckOutput {
 
 /** Check an input that `parseCheckInput` already accepted. */
 export function checkParsed(input: CheckInput): CheckOutput {
-  const policy = resolvePolicy(input.policy);
-  const contexts = input.runs.map((run, i) =>
+  return checkContexts(input, resolvePolicy(input.policy), (run, i, policy) =>
     buildRunContext(run, i, policy, input.series?.[run.label], input.spectra?.[run.label]),
   );
+}
+
+/**
+ * Input of `checkPrepared`: stored run records (validated when stored), each series as its
+ * statistics computed once on arrival (`analyseSeries` under the policy's MSER batch) and the
+ * spectra's columns (short: one row per degree).
+ */
+export interface PreparedInput {
+  runs: RunRecord[];
+  claim?: ClaimRecord;
+  policy?: unknown;
+  seriesStats?: Record<string, SeriesStats>;
+  spectra?: Record<string, Columns>;
+}
+
+/** Checks stored runs from their stored analyses: no series is read or analysed again. */
+export function checkPrepared(input: PreparedInput): CheckOutput {
+  const p = policySchema.safeParse(input.policy ?? {});
+  if (!p.success) throw new CheckInputError(zodErrors(p.error, input.policy, ["policy"]));
+  const claim = input.claim;
+  return checkContexts({ runs: input.runs, ...(claim ? { claim } : {}) }, resolvePolicy(p.data), (run, i, policy) =>
+    buildRunContext(run, i, policy, undefined, input.spectra?.[run.label], input.seriesStats?.[run.label]),
+  );
+}
+
+/** Thrown by `checkPreparedRound` when one claim cannot be checked: which claim (index), and why. */
+export class ClaimCheckError extends Error {
+  constructor(
+    readonly claimIndex: number,
+    readonly inner: unknown,
+  ) {
+    super(`claims[${claimIndex}]: ${inner instanceof Error ? inner.message : String(inner)}`);
+    this.name = "ClaimCheckError";
+  }
+}
+
+/**
+ * A whole round from stored analyses: every run's context built once, then each claim's flags
+ * against those contexts (a claim needs no run rule again). `claimFlags[i]` belongs to `claims[i]`.
+ * Stored records are validated again under the current schema (a stricter checker may refuse a
+ * record stored earlier): runs throw CheckInputError, a claim throws ClaimCheckError.
+ */
+export function checkPreparedRound(input: PreparedInput & { claims: ClaimRecord[] }): { runs: CheckOutput["runs"]; claimFlags: Flag[][] } {
+  const p = policySchema.safeParse(input.policy ?? {});
+  if (!p.success) throw new CheckInputError(zodErrors(p.error, input.policy, ["policy"]));
+  const policy = resolvePolicy(p.data);
+  if (!input.runs.length && !input.claims.length) return { runs: [], claimFlags: [] };
+  const parsedRuns = input.runs.length ? parseCheckInput({ runs: input.runs }) : ({ ok: true, value: { runs: [] } } as const);
+  if (!parsedRuns.ok) throw new CheckInputError(parsedRuns.errors);
+  const contexts = parsedRuns.value.runs.map((run, i) =>
+    buildRunContext(run, i, policy, undefined, input.spectra?.[run.label], input.seriesStats?.[run.label]),
+  );
+  const runs = contexts.map((ctx) => ({ label: ctx.label, derived: ctx.derived, flags: RUN_RULES.flatMap((rule) => rule(ctx)) }));
+  const byLabel = new Map(contexts.map((c) => [c.label, c]));
+  const claimFlags = input.claims.map((raw, i) => {
+    try {
+      const c = claimSchema.safeParse(raw);
+      if (!c.success) throw new CheckInputError(zodErrors(c.error, raw, ["claim"]));
+      return claimRules({ claim: c.data, runs: byLabel, policy });
+    } catch (e) {
+      throw new ClaimCheckError(i, e);
+    }
+  });
+  return { runs, claimFlags };
+}
+
+function checkContexts(
+  input: { runs: RunRecord[]; claim?: ClaimRecord },
+  policy: ReturnType<typeof resolvePolicy>,
+  build: (run: RunRecord, i: number, policy: ReturnType<typeof resolvePolicy>) => RunContext,
+): CheckOutput {
+  const contexts = input.runs.map((run, i) => build(run, i, policy));
   const runs = contexts.map((ctx) => ({
     label: ctx.label,
     derived: ctx.derived,
@@ -71,7 +147,7 @@ export function checkParsed(input: CheckInput): CheckOutput {
   let claimFlags: Flag[] = [];
   if (input.claim) {
     const cc: ClaimContext = { claim: input.claim, runs: new Map(contexts.map((c) => [c.label, c])), policy };
-    claimFlags = [...checkComparison(cc), ...checkStated(cc), ...checkRatioScaling(cc)];
+    claimFlags = claimRules(cc);
   }
   return { runs, claimFlags };
 }

@@ -22,7 +22,10 @@ export const envSchema = z.object({
   SMTP_PORT: port.default(1025),
   MAIL_FROM: z.string().min(3).default("Runproof <no-reply@runproof.example>"),
   MAIL_CATCHER_URL: z.url().default("http://127.0.0.1:1080"),
+  /** Whether `npm run worker` delivers the outbox (tests that drive delivery themselves turn it off). */
   OUTBOX_WORKER: flag.default(true),
+  /** Whether this process queues jobs (round checks) for the workers; off in unit tests. */
+  JOBS_QUEUE: flag.default(true),
   OUTBOX_POLL_MS: z.coerce.number().int().min(100).default(2000),
   S3_ENDPOINT: z.url().default("http://127.0.0.1:4569"),
   S3_REGION: z.string().min(1).default("us-east-1"),

@@ -1,8 +1,15 @@
-import { and, desc, eq, inArray, sql } from "drizzle-orm";
+import { and, count, desc, eq, inArray, lt, or, sql, type SQL } from "drizzle-orm";
 import type { Database } from "~db/client";
 import { rounds, submissionMembers, submissions, venueMembers, venues } from "~db/schema";
 
 export type DashboardItem = { id: string; title: string; stage: string; venueName: string; venueId: string };
+/** One page of a dashboard list: its items, how many there are in all, and the next page's cursor. */
+export type DashboardList = { items: DashboardItem[]; total: number; next: string | null };
+
+/** Submissions per dashboard list and page; older ones page in with a cursor. */
+export const DASHBOARD_PAGE_SIZE = 20;
+export const DASHBOARD_LISTS = ["authored", "coAuthored", "reviewing", "editing"] as const;
+export type DashboardListName = (typeof DASHBOARD_LISTS)[number];
 
 /** Authors see their working title; editors and reviewers the title as last sent. */
 const sentTitle = sql<string>`coalesce((select ${rounds.sentTitle} from ${rounds} where ${rounds.submissionId} = ${submissions.id} and ${rounds.state} <> 'draft' order by ${rounds.number} desc limit 1), ${submissions.title})`;
@@ -13,38 +20,73 @@ const itemColumns = {
   stage: submissions.stage,
   venueName: venues.name,
   venueId: venues.id,
+  updatedAt: submissions.updatedAt,
 };
 
-async function byMembership(db: Database, userId: string, role: "author" | "co-author" | "reviewer") {
-  return db
-    .select(role === "reviewer" ? { ...itemColumns, title: sentTitle } : itemColumns)
-    .from(submissionMembers)
-    .innerJoin(submissions, eq(submissions.id, submissionMembers.submissionId))
-    .innerJoin(venues, eq(venues.id, submissions.venueId))
-    .where(and(eq(submissionMembers.userId, userId), eq(submissionMembers.role, role)))
-    .orderBy(desc(submissions.updatedAt));
+const CURSOR = /^(\d{4}-\d\d-\d\dT\d\d:\d\d:\d\d(?:\.\d+)?Z)_([0-9a-f-]{36})$/i;
+/** A cursor from the URL: the last item shown (updated time and id); anything else starts at the top. */
+export function parseListCursor(value: string | null) {
+  const m = value ? CURSOR.exec(value) : null;
+  return m && !Number.isNaN(Date.parse(m[1]!)) ? { updatedAt: new Date(m[1]!), id: m[2]! } : null;
+}
+type Cursor = ReturnType<typeof parseListCursor>;
+const after = (c: Cursor): SQL | undefined =>
+  c ? or(lt(submissions.updatedAt, c.updatedAt), and(eq(submissions.updatedAt, c.updatedAt), lt(submissions.id, c.id))) : undefined;
+
+async function page(rows: Promise<(DashboardItem & { updatedAt: Date })[]>, total: Promise<{ n: number }[]>): Promise<DashboardList> {
+  const [r, [t]] = await Promise.all([rows, total]);
+  const items = r.slice(0, DASHBOARD_PAGE_SIZE);
+  const last = items[items.length - 1];
+  return {
+    items: items.map(({ updatedAt: _u, ...i }) => i),
+    total: t?.n ?? 0,
+    next: r.length > DASHBOARD_PAGE_SIZE && last ? `${last.updatedAt.toISOString()}_${last.id}` : null,
+  };
 }
 
-/** One list per role the person holds; a role they do not hold is simply absent. */
-export async function dashboardFor(db: Database, userId: string) {
+function byMembership(db: Database, userId: string, role: "author" | "co-author" | "reviewer", cursor: Cursor) {
+  const where = and(eq(submissionMembers.userId, userId), eq(submissionMembers.role, role));
+  return page(
+    db
+      .select(role === "reviewer" ? { ...itemColumns, title: sentTitle } : itemColumns)
+      .from(submissionMembers)
+      .innerJoin(submissions, eq(submissions.id, submissionMembers.submissionId))
+      .innerJoin(venues, eq(venues.id, submissions.venueId))
+      .where(and(where, after(cursor)))
+      .orderBy(desc(submissions.updatedAt), desc(submissions.id))
+      .limit(DASHBOARD_PAGE_SIZE + 1),
+    db.select({ n: count() }).from(submissionMembers).where(where),
+  );
+}
+
+/**
+ * One list per role the person holds (a role they do not hold is simply empty), each paged with
+ * a keyset cursor on (updated, id): a page costs the same however many submissions there are.
+ */
+export async function dashboardFor(db: Database, userId: string, cursors: Partial<Record<DashboardListName, Cursor>> = {}) {
   const editorVenues = await db
     .select({ id: venues.id, name: venues.name })
     .from(venueMembers)
     .innerJoin(venues, eq(venues.id, venueMembers.venueId))
     .where(and(eq(venueMembers.userId, userId), eq(venueMembers.role, "editor")));
   const venueIds = editorVenues.map((v) => v.id);
+  const editingWhere = and(inArray(submissions.venueId, venueIds), inArray(submissions.stage, ["with-editor", "in-review"]));
   const [authored, coAuthored, reviewing, editing] = await Promise.all([
-    byMembership(db, userId, "author"),
-    byMembership(db, userId, "co-author"),
-    byMembership(db, userId, "reviewer"),
+    byMembership(db, userId, "author", cursors.authored ?? null),
+    byMembership(db, userId, "co-author", cursors.coAuthored ?? null),
+    byMembership(db, userId, "reviewer", cursors.reviewing ?? null),
     venueIds.length
-      ? db
-          .select({ ...itemColumns, title: sentTitle })
-          .from(submissions)
-          .innerJoin(venues, eq(venues.id, submissions.venueId))
-          .where(and(inArray(submissions.venueId, venueIds), inArray(submissions.stage, ["with-editor", "in-review"])))
-          .orderBy(desc(submissions.updatedAt))
-      : Promise.resolve([] as DashboardItem[]),
+      ? page(
+          db
+            .select({ ...itemColumns, title: sentTitle })
+            .from(submissions)
+            .innerJoin(venues, eq(venues.id, submissions.venueId))
+            .where(and(editingWhere, after(cursors.editing ?? null)))
+            .orderBy(desc(submissions.updatedAt), desc(submissions.id))
+            .limit(DASHBOARD_PAGE_SIZE + 1),
+          db.select({ n: count() }).from(submissions).where(editingWhere),
+        )
+      : Promise.resolve({ items: [], total: 0, next: null } as DashboardList),
   ]);
   return { editorVenues, authored, coAuthored, reviewing, editing };
 }

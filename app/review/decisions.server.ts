@@ -7,7 +7,7 @@ import { env } from "~/config/env.server";
 import { compose } from "~/mail/compose";
 import { enqueueMail } from "~/mail/outbox.server";
 import { audit } from "~/workspace/audit.server";
-import { recheckRound } from "~/workspace/recheck.server";
+import { requestRecheck } from "~/workspace/recheck.server";
 import { StateConflict } from "~/workspace/types";
 import { roundContext, submissionAuthors } from "./context.server";
 import { letterFor } from "./documents.server";
@@ -82,7 +82,7 @@ export async function releaseDecision(db: Database, opts: { roundId: string; dec
     }
     return { round, next };
   });
-  // Flags of the new round are computed after the commit: recheck opens its own transaction.
-  if (result.next) await recheckRound(db, result.next.id);
+  // The new round is checked by the worker (its runs and claims are copies; their checks are queued).
+  if (result.next) await requestRecheck(db, result.next.id);
   return result;
 }

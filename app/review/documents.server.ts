@@ -1,9 +1,8 @@
-import { asc, eq } from "drizzle-orm";
-import { contributors, flags } from "~db/schema";
-import type { Database } from "~db/client";
-import { check } from "~/checker";
+import { asc, eq, inArray } from "drizzle-orm";
+import { contributors, flags, runChecks } from "~db/schema";
 import type { Derived } from "~/checker/types";
-import { loadRoundInputs } from "~/workspace/recheck.server";
+import { roundClaims } from "~/workspace/claims.server";
+import { roundRunList } from "~/workspace/runs.server";
 import type { Db } from "~/workspace/types";
 import type { RoundContext } from "./context.server";
 import { decisionLetterPdf } from "./pdf/letter.server";
@@ -16,27 +15,26 @@ export async function roundFlags(db: Db, roundId: string) {
 
 /** The packet of a round; a double-blind venue's packet carries no author names. */
 export async function packetFor(db: Db, ctx: RoundContext) {
-  const [inputs, flagRows, people] = await Promise.all([
-    loadRoundInputs(db as Database, ctx.round.id),
+  const [runRows, claimRows, flagRows, people] = await Promise.all([
+    roundRunList(db, ctx.round.id),
+    roundClaims(db, ctx.round.id),
     roundFlags(db, ctx.round.id),
     // The contributor list as the round was sent; the live list only for a round never sent.
     ctx.round.sentContributors ??
       db.select({ name: contributors.name, affiliation: contributors.affiliation }).from(contributors).where(eq(contributors.submissionId, ctx.submission.id)).orderBy(asc(contributors.position)),
   ]);
-  const derived = new Map<string, Derived>();
-  try {
-    if (inputs.runs.length) for (const r of check({ runs: inputs.runs, series: inputs.series, spectra: inputs.spectra, policy: inputs.policy as never }).runs) derived.set(r.label, r.derived);
-  } catch {
-    // Stored records were validated on the way in; a checker upgrade that rejects one leaves the recomputed values out.
-  }
+  // The recomputed values as the check job stored them per run version: nothing is recomputed here.
+  const versionIds = runRows.map((r) => r.versionId);
+  const checked = versionIds.length ? await db.select({ id: runChecks.runVersionId, derived: runChecks.derived }).from(runChecks).where(inArray(runChecks.runVersionId, versionIds)) : [];
+  const derived = new Map(checked.map((c) => [c.id, c.derived as Derived]));
   const authors = ctx.venue.blinding === "double" || !people.length ? null : people.map((p) => `${p.name}${p.affiliation ? ` (${p.affiliation})` : ""}`).join("; ");
   return reviewerPacketPdf({
     venueName: ctx.venue.name,
     title: ctx.submission.title,
     authors,
     roundNumber: ctx.round.number,
-    claims: inputs.claims,
-    runs: inputs.runRows.map((r) => ({ label: r.label, version: r.version, record: r.record, derived: derived.get(r.label) })),
+    claims: claimRows.map((c) => ({ figure: c.figure, statement: c.statement, record: c.record })),
+    runs: runRows.map((r) => ({ label: r.label, version: r.version, record: r.record, derived: derived.get(r.versionId) })),
     flags: flagRows,
   });
 }

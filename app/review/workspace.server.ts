@@ -4,7 +4,7 @@ import { contributors } from "~db/schema";
 import type { RunRecord } from "~/checker/schema";
 import { roundClaims } from "~/workspace/claims.server";
 import { roundFlags } from "~/workspace/flags-query.server";
-import { roundRunRows, runPlots } from "~/workspace/round-data.server";
+import { roundRunRows, runPlotsMany } from "~/workspace/round-data.server";
 import { roundRunList } from "~/workspace/runs.server";
 import type { RoundContext } from "./context.server";
 import { anchorLabels } from "./remarks.server";
@@ -27,7 +27,7 @@ export async function reviewerView(db: Database, ctx: RoundContext, review: { id
       : (ctx.round.sentContributors ??
         db.select({ name: contributors.name, affiliation: contributors.affiliation }).from(contributors).where(eq(contributors.submissionId, ctx.submission.id)).orderBy(asc(contributors.position))),
   ]);
-  const plots = await Promise.all(versions.map(async (v) => ({ label: v.label, ...(await runPlots(db, v.versionId, v.record as RunRecord)) })));
+  const plots = await runPlotsMany(db, versions);
   const label = await anchorLabels(db, ctx.round.id);
   return {
     authors: people.map((p) => ({ name: p.name, affiliation: p.affiliation })),

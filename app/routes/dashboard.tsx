@@ -1,7 +1,7 @@
 import { href, Link } from "react-router";
 import { requireUser } from "~/access/session.server";
 import { openVenues } from "~/workspace/submissions.server";
-import { dashboardFor, type DashboardItem } from "~/dashboard/queries.server";
+import { DASHBOARD_LISTS, dashboardFor, parseListCursor, type DashboardList } from "~/dashboard/queries.server";
 import { myDecisions, myInvitations, myReviews } from "~/review/dashboard.server";
 import type { Route } from "./+types/dashboard";
 import { decisionLabel, submissionStageLabel } from "~/review/labels";
@@ -10,8 +10,11 @@ export const meta: Route.MetaFunction = () => [{ title: "What needs me · Runpro
 
 export async function loader(args: Route.LoaderArgs) {
   const { user, db } = await requireUser(args);
+  // `?after-editing=…` (and likewise per list) pages one list with a cursor.
+  const url = new URL(args.request.url);
+  const cursors = Object.fromEntries(DASHBOARD_LISTS.map((l) => [l, parseListCursor(url.searchParams.get(`after-${l}`))]));
   const [lists, reviews, venuesOpen, decisions, invited] = await Promise.all([
-    dashboardFor(db, user.id),
+    dashboardFor(db, user.id, cursors),
     myReviews(db, user.id),
     openVenues(db),
     myDecisions(db, user.id),
@@ -20,11 +23,12 @@ export async function loader(args: Route.LoaderArgs) {
   return { name: user.name, admin: user.role === "admin", ...lists, reviews, venuesOpen, decisions, invited };
 }
 
-function Section({ title, items, empty, testId }: { title: string; items: DashboardItem[]; empty: string; testId: string }) {
+function Section({ title, list, name, empty, testId }: { title: string; list: DashboardList; name: string; empty: string; testId: string }) {
+  const items = list.items;
   return (
     <section className="card" aria-labelledby={`${testId}-h`} data-testid={testId}>
       <h2 id={`${testId}-h`} className="text-lead">
-        {title}
+        {title} <span className="text-caption">({list.total})</span>
       </h2>
       {items.length === 0 ? (
         <p className="mt-2 text-caption text-basalt-soft">{empty}</p>
@@ -42,13 +46,18 @@ function Section({ title, items, empty, testId }: { title: string; items: Dashbo
           ))}
         </ul>
       )}
+      {list.next ? (
+        <p className="mt-2 text-caption">
+          <Link to={`?after-${name}=${encodeURIComponent(list.next)}`}>Older submissions</Link>
+        </p>
+      ) : null}
     </section>
   );
 }
 
 export default function Dashboard({ loaderData: d }: Route.ComponentProps) {
   const holdsNothing =
-    !d.admin && d.editorVenues.length === 0 && !d.authored.length && !d.coAuthored.length && !d.reviewing.length;
+    !d.admin && d.editorVenues.length === 0 && !d.authored.total && !d.coAuthored.total && !d.reviewing.total && d.invited.length === 0;
   return (
     <main className="mx-auto max-w-5xl p-gutter">
       <h1 className="text-title">What needs you, {d.name}</h1>
@@ -62,19 +71,20 @@ export default function Dashboard({ loaderData: d }: Route.ComponentProps) {
         {d.editorVenues.length > 0 ? (
           <Section
             title={`As editor of ${d.editorVenues.map((v) => v.name).join(", ")}`}
-            items={d.editing}
+            list={d.editing}
+            name="editing"
             empty="No rounds are waiting for you."
             testId="role-editor"
           />
         ) : null}
-        {d.reviewing.length > 0 ? (
-          <Section title="As reviewer" items={d.reviewing} empty="No reviews are due." testId="role-reviewer" />
+        {d.reviewing.total > 0 ? (
+          <Section title="As reviewer" list={d.reviewing} name="reviewing" empty="No reviews are due." testId="role-reviewer" />
         ) : null}
-        {d.authored.length > 0 ? (
-          <Section title="Your submissions" items={d.authored} empty="" testId="role-author" />
+        {d.authored.total > 0 ? (
+          <Section title="Your submissions" list={d.authored} name="authored" empty="" testId="role-author" />
         ) : null}
-        {d.coAuthored.length > 0 ? (
-          <Section title="As co-author" items={d.coAuthored} empty="" testId="role-co-author" />
+        {d.coAuthored.total > 0 ? (
+          <Section title="As co-author" list={d.coAuthored} name="coAuthored" empty="" testId="role-co-author" />
         ) : null}
         {d.editorVenues.length > 0 ? (
           <section className="card" data-testid="editor-desks">

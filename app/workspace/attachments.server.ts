@@ -4,13 +4,9 @@ import { and, eq } from "drizzle-orm";
 import type { Database } from "~db/client";
 import { attachments, roundRuns, storedFiles } from "~db/schema";
 import { CsvFormatError } from "~/checker/csv";
-import { parseCsvStream } from "~/checker/csv-stream";
+import { parseCsvStreamTyped } from "~/checker/csv-stream";
 import { storage } from "~/storage/storage.server";
-import { queueRecheck } from "~/jobs/recheck.server";
-import { recheckRound } from "./recheck.server";
-
-/** Above this many rows the re-check leaves the request and runs as a queued job. */
-export const QUEUED_RECHECK_ROWS = 100_000;
+import { markRoundChanged, requestRecheck } from "./recheck.server";
 import { draftRoundById } from "./rounds.server";
 import { InvalidInput, PayloadTooLarge } from "./types";
 
@@ -63,7 +59,13 @@ export async function attachCsv(db: Database, opts: AttachOptions): Promise<{ at
         }
         hash.update(value);
         // "close" too: after a failure the stream is destroyed and will never drain.
-        if (!toStorage.write(value)) await new Promise((res) => (toStorage.once("drain", res), toStorage.once("close", res)));
+        if (!toStorage.write(value)) {
+          await new Promise<void>((res) => {
+            const done = () => (toStorage.off("drain", done), toStorage.off("close", done), res());
+            toStorage.once("drain", done);
+            toStorage.once("close", done);
+          });
+        }
         yield value;
       }
     } finally {
@@ -73,9 +75,11 @@ export async function attachCsv(db: Database, opts: AttachOptions): Promise<{ at
 
   const upload = storage.put(key, toStorage, "text/csv").then(() => (uploaded = true));
   upload.catch(() => {});
-  let columns: Record<string, number[]>;
+  let columns: Record<string, Float64Array>;
   try {
-    columns = await parseCsvStream(chunks(), opts.kind);
+    // The parse only validates (line by line, chunk by chunk, so other requests keep being served);
+    // the statistics and the plot copy are made once by the check job.
+    columns = await parseCsvStreamTyped(chunks(), opts.kind);
     if (tooLarge) throw new PayloadTooLarge(`The file "${opts.filename}" is larger than the upload limit of ${mb(opts.limitBytes)}; nothing was stored.`);
     toStorage.end();
     await upload;
@@ -109,17 +113,16 @@ export async function attachCsv(db: Database, opts: AttachOptions): Promise<{ at
         .where(and(eq(attachments.runVersionId, pointer.runVersionId), eq(attachments.kind, opts.kind), eq(attachments.active, true)));
       const [row] = await tx
         .insert(attachments)
-        .values({ runVersionId: pointer.runVersionId, kind: opts.kind, fileId: file!.id, columns: names, rowCount, data: columns })
+        .values({ runVersionId: pointer.runVersionId, kind: opts.kind, fileId: file!.id, columns: names, rowCount })
         .returning({ id: attachments.id });
+      await markRoundChanged(tx, opts.roundId);
       return row!.id;
     });
   } catch (e) {
     if (uploaded) await storage.remove(key).catch(() => {});
     throw e;
   }
-  // Large series would hold the upload's request open for the whole re-check; the round page
-  // refreshes itself when the queued job has stored the new flags. Without a job runner, inline.
-  const queued = rowCount > QUEUED_RECHECK_ROWS && (await queueRecheck(opts.roundId));
-  if (!queued) await recheckRound(db, opts.roundId);
+  // The check job analyses the file and re-checks this run and the claims naming it.
+  await requestRecheck(db, opts.roundId, { alreadyMarked: true });
   return { attachmentId, rowCount, columns: names };
 }

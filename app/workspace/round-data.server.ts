@@ -1,86 +1,162 @@
-import { and, eq, inArray } from "drizzle-orm";
-import { LTTB } from "downsample";
+import { and, asc, desc, eq, inArray, sql, type SQL } from "drizzle-orm";
 import type { Database } from "~db/client";
-import { attachments, flags, storedFiles } from "~db/schema";
-import { check } from "~/checker";
+import { attachments, flags, roundRuns, runChecks, runs, runVersions, storedFiles } from "~db/schema";
 import type { RunRecord } from "~/checker/schema";
 import { seriesSummary } from "~/checker/derive";
-import { analyseSeries } from "~/checker/series";
-import type { Derived } from "~/checker/types";
-import { loadRoundInputs } from "./recheck.server";
+import type { SeriesStats } from "~/checker/series";
 import type { RunRow, SeriesPlot, SpectrumPlot } from "./views";
 
 export type { RunRow, SeriesPlot, SpectrumPlot };
 
+/** Orders the runs table can be sorted by (SQL columns; unknown values last in both directions). */
+export const RUN_ROW_SORTS = ["label", "version", "updatedAt", "flags", "mismatch", "caution", "note", "E", "Ra", "RaRotating", "Pr", "Pm", "Rm", "runLengthMagnetic"] as const;
+export type RunRowSort = (typeof RUN_ROW_SORTS)[number];
+export type RunRowQuery = { sort?: RunRowSort; dir?: "asc" | "desc"; limit?: number; offset?: number };
 
-const n = (v: number | undefined) => (v === undefined || !Number.isFinite(v) ? null : v);
-
-/** The runs table of a round: key controls, derived numbers (recomputed by the checker) and flag counts. */
-export async function roundRunRows(db: Database, roundId: string): Promise<RunRow[]> {
-  const inputs = await loadRoundInputs(db, roundId);
-  if (!inputs.runs.length) return [];
-  const derived = new Map<string, Derived>();
-  try {
-    for (const r of check({ runs: inputs.runs, series: inputs.series, spectra: inputs.spectra }).runs) derived.set(r.label, r.derived);
-  } catch {
-    // Stored records were validated on the way in; a checker upgrade that rejects one leaves the columns blank.
-  }
-  const counts = await db.select({ run: flags.runLabel, severity: flags.severity }).from(flags).where(eq(flags.roundId, roundId));
-  return inputs.runRows.map((r) => {
-    const d = derived.get(r.label) ?? {};
-    const mine = counts.filter((c) => c.run === r.label);
-    return {
-      runId: r.runId,
-      label: r.label,
-      version: r.version,
-      origin: r.origin,
-      E: n(d.E),
-      Ra: n(d.Ra),
-      RaRotating: n(d.RaRotating),
-      Pr: n(d.Pr),
-      Pm: n(d.Pm),
-      Rm: n(d.Rm),
-      runLengthMagnetic: n(d.runLength?.magnetic),
-      mismatch: mine.filter((c) => c.severity === "mismatch").length,
-      caution: mine.filter((c) => c.severity === "caution").length,
-      note: mine.filter((c) => c.severity === "note").length,
-    };
-  });
+function rowQuery(db: Database, roundId: string) {
+  // Flag counts per run label in one grouped subquery (run flags and claim flags naming the run).
+  const counts = db
+    .select({
+      runLabel: flags.runLabel,
+      mismatch: sql<number>`count(*) filter (where ${flags.severity} = 'mismatch')::int`.as("mismatch"),
+      caution: sql<number>`count(*) filter (where ${flags.severity} = 'caution')::int`.as("caution"),
+      note: sql<number>`count(*) filter (where ${flags.severity} = 'note')::int`.as("note"),
+    })
+    .from(flags)
+    .where(eq(flags.roundId, roundId))
+    .groupBy(flags.runLabel)
+    .as("counts");
+  const cols = {
+    runId: runs.id,
+    label: runs.label,
+    version: runVersions.version,
+    origin: runVersions.origin,
+    updatedAt: runVersions.createdAt,
+    E: runChecks.e,
+    Ra: runChecks.ra,
+    RaRotating: runChecks.raRotating,
+    Pr: runChecks.pr,
+    Pm: runChecks.pm,
+    Rm: runChecks.rm,
+    runLengthMagnetic: runChecks.runLengthMagnetic,
+    mismatch: sql<number>`coalesce(${counts.mismatch}, 0)`,
+    caution: sql<number>`coalesce(${counts.caution}, 0)`,
+    note: sql<number>`coalesce(${counts.note}, 0)`,
+    checkedKey: roundRuns.checkedKey,
+  };
+  const query = db
+    .select(cols)
+    .from(roundRuns)
+    .innerJoin(runs, eq(runs.id, roundRuns.runId))
+    .innerJoin(runVersions, eq(runVersions.id, roundRuns.runVersionId))
+    .leftJoin(runChecks, eq(runChecks.runVersionId, roundRuns.runVersionId))
+    .leftJoin(counts, eq(counts.runLabel, runs.label))
+    .where(eq(roundRuns.roundId, roundId));
+  return { query, cols, counts };
 }
 
+/**
+ * The runs table of a round: key controls and derived numbers as the check job stored them for
+ * each run version, and flag counts — read, never recomputed. `checking` marks a run whose
+ * check has not landed yet (its numbers are blank until then). Sorted and paged in SQL.
+ */
+export async function roundRunRows(db: Database, roundId: string, q: RunRowQuery = {}): Promise<RunRow[]> {
+  const { query, cols, counts } = rowQuery(db, roundId);
+  const key: Record<RunRowSort, SQL | typeof cols.label> = {
+    label: cols.label,
+    version: sql`${cols.version}`,
+    updatedAt: sql`${cols.updatedAt}`,
+    flags: sql`coalesce(${counts.mismatch}, 0) * 1000000 + coalesce(${counts.caution}, 0) * 1000 + coalesce(${counts.note}, 0)`,
+    mismatch: sql`coalesce(${counts.mismatch}, 0)`,
+    caution: sql`coalesce(${counts.caution}, 0)`,
+    note: sql`coalesce(${counts.note}, 0)`,
+    E: sql`${cols.E}`,
+    Ra: sql`${cols.Ra}`,
+    RaRotating: sql`${cols.RaRotating}`,
+    Pr: sql`${cols.Pr}`,
+    Pm: sql`${cols.Pm}`,
+    Rm: sql`${cols.Rm}`,
+    runLengthMagnetic: sql`${cols.runLengthMagnetic}`,
+  };
+  const sort = q.sort ?? "label";
+  const dir = q.dir === "desc" ? "desc" : "asc";
+  const byLabel = sql`${cols.label} collate "C"`;
+  let ordered = query.orderBy(
+    sort === "label" ? (dir === "desc" ? desc(byLabel) : asc(byLabel)) : sql`${key[sort]} ${sql.raw(dir)} nulls last`,
+    asc(byLabel),
+  ).$dynamic();
+  if (q.limit !== undefined) ordered = ordered.limit(Math.max(0, Math.min(q.limit, 1000)));
+  if (q.offset !== undefined) ordered = ordered.offset(Math.max(0, q.offset));
+  const rows = await ordered;
+  return rows.map(({ checkedKey, updatedAt, ...r }) => ({ ...r, updatedAt: updatedAt.toISOString(), checking: checkedKey === null }));
+}
 
-const MAX_POINTS = 600;
+/** How many runs a round has (for paging). */
+export async function roundRunCount(db: Database, roundId: string) {
+  const [row] = await db.select({ n: sql<number>`count(*)::int` }).from(roundRuns).where(eq(roundRuns.roundId, roundId));
+  return row?.n ?? 0;
+}
 
-/** Plots of one run version: series downsampled (LTTB) for display; the window comes from every sample. */
-export async function runPlots(db: Database, runVersionId: string, record: RunRecord) {
-  const rows = await db
-    .select({ id: attachments.id, kind: attachments.kind, data: attachments.data, rowCount: attachments.rowCount, filename: storedFiles.filename, size: storedFiles.size })
+/** Derived values of one run version as the check job stored them ({} before the first check). */
+export async function storedDerived(db: Database, runVersionId: string): Promise<Record<string, unknown>> {
+  const [row] = await db.select({ derived: runChecks.derived }).from(runChecks).where(eq(runChecks.runVersionId, runVersionId));
+  return row?.derived ?? {};
+}
+
+type PlotFileRow = {
+  id: string; runVersionId: string; kind: "series" | "spectrum"; analysis: import("~db/schema").AttachmentAnalysis | null;
+  plot: import("~db/schema").AttachmentPlot | null; rowCount: number; filename: string; size: number;
+};
+
+function plotFiles(db: Database, runVersionIds: string[]): Promise<PlotFileRow[]> {
+  if (!runVersionIds.length) return Promise.resolve([]);
+  return db
+    .select({ id: attachments.id, runVersionId: attachments.runVersionId, kind: attachments.kind, analysis: attachments.analysis, plot: attachments.plot, rowCount: attachments.rowCount, filename: storedFiles.filename, size: storedFiles.size })
     .from(attachments)
     .innerJoin(storedFiles, eq(storedFiles.id, attachments.fileId))
-    .where(and(eq(attachments.runVersionId, runVersionId), eq(attachments.active, true), inArray(attachments.kind, ["series", "spectrum"])));
+    .where(and(inArray(attachments.runVersionId, runVersionIds), eq(attachments.active, true), inArray(attachments.kind, ["series", "spectrum"])));
+}
+
+function plotsOf(rows: PlotFileRow[], record: RunRecord) {
   let series: SeriesPlot | null = null;
   let spectrum: SpectrumPlot | null = null;
+  let analysing = false;
   for (const a of rows) {
-    if (a.kind === "series") {
-      const stats = analyseSeries(a.data, 5);
-      const t = a.data.t ?? [];
-      const columns = Object.keys(a.data).filter((c) => c !== "t");
-      const points: SeriesPlot["points"] = {};
-      for (const c of columns) {
-        const pairs = t.map((x, i) => ({ x, y: a.data[c]![i]! }));
-        points[c] = pairs.length > MAX_POINTS ? (LTTB(pairs, MAX_POINTS) as { x: number; y: number }[]) : pairs;
-      }
-      series = { columns, points, tStart: stats?.tStart ?? 0, windowStart: stats?.windowStart ?? 0, tEnd: stats?.tEnd ?? 0, rows: a.rowCount, ...(stats ? { stats: seriesSummary(stats) } : {}) };
-    } else {
-      const l = a.data.l ?? [];
-      const columns = Object.keys(a.data).filter((c) => c !== "l");
-      spectrum = {
-        columns,
-        points: l.map((deg, i) => Object.fromEntries([["l", deg], ...columns.map((c) => [c, a.data[c]![i]!])]) as SpectrumPlot["points"][number]),
-        truncationDegree: record.resolution?.maxDegree ?? l[l.length - 1] ?? 0,
+    if (!a.analysis || !a.plot) {
+      analysing = true;
+      continue;
+    }
+    if (a.kind === "series" && a.analysis.kind === "series") {
+      const stats = a.analysis.stats as SeriesStats | null | undefined;
+      series = {
+        columns: a.plot.columns, points: a.plot.points, tStart: stats?.tStart ?? 0, windowStart: stats?.windowStart ?? 0, tEnd: stats?.tEnd ?? 0, rows: a.rowCount,
+        ...(stats ? { stats: seriesSummary(stats) } : {}),
       };
+    } else if (a.analysis.kind === "spectrum") {
+      const cols = a.analysis.columns;
+      const l = cols.l ?? [];
+      const columns = Object.keys(cols).filter((c) => c !== "l");
+      // One row per degree; a very long spectrum is thinned evenly for the chart.
+      const step = Math.max(1, Math.ceil(l.length / 2000));
+      const points: SpectrumPlot["points"] = [];
+      for (let i = 0; i < l.length; i += step) points.push(Object.fromEntries([["l", l[i]!], ...columns.map((c) => [c, cols[c]![i]!])]) as SpectrumPlot["points"][number]);
+      spectrum = { columns, points, truncationDegree: record.resolution?.maxDegree ?? l[l.length - 1] ?? 0 };
     }
   }
   const files = rows.map((a) => ({ id: a.id, kind: a.kind, filename: a.filename, rowCount: a.rowCount, size: a.size }));
-  return { series, spectrum, files };
+  return { series, spectrum, files, analysing };
+}
+
+/**
+ * Plots of one run version: the downsampled copies and the series window stored when the file
+ * was analysed (`analysing` until the check job has analysed a new file).
+ */
+export async function runPlots(db: Database, runVersionId: string, record: RunRecord) {
+  return plotsOf(await plotFiles(db, [runVersionId]), record);
+}
+
+/** Plots of several run versions in one query (the reviewer's workspace shows every run). */
+export async function runPlotsMany(db: Database, versions: { versionId: string; label: string; record: unknown }[]) {
+  const rows = await plotFiles(db, versions.map((v) => v.versionId));
+  return versions.map((v) => ({ label: v.label, ...plotsOf(rows.filter((r) => r.runVersionId === v.versionId), v.record as RunRecord) }));
 }

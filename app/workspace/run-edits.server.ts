@@ -3,28 +3,37 @@ import type { Database } from "~db/client";
 import { namelistMaps } from "~db/schema";
 import { createClaim, deleteClaim, updateClaim, type ClaimInput } from "./claims.server";
 import { type KeyMap, mergeRecord, namelistToRecord } from "./namelist-map";
-import { recheckRound } from "./recheck.server";
+import { markRoundChanged, requestRecheck } from "./recheck.server";
 import { draftRoundById } from "./rounds.server";
 import { createRun, parseRunRecord, reviseRun, type RunOrigin } from "./runs.server";
 import { InvalidInput } from "./types";
 
 /**
- * The workspace's writes: each validates, writes in one transaction, then re-runs the checker
- * over the round so the flags always describe what is stored.
+ * The workspace's writes: each validates and writes in one transaction that also marks the
+ * round changed, then queues the round's check. The request returns at once; pages show
+ * "checking…" until the worker has stored the flags of what changed.
  */
 export async function addRun(db: Database, opts: { submissionId: string; roundId: string; input: unknown; origin: RunOrigin; userId: string }) {
   await draftRoundById(db, opts.roundId);
   const record = parseRunRecord(opts.input);
-  const out = await db.transaction((tx) => createRun(tx, { ...opts, record }));
-  await recheckRound(db, opts.roundId);
+  const out = await db.transaction(async (tx) => {
+    const created = await createRun(tx, { ...opts, record });
+    await markRoundChanged(tx, opts.roundId);
+    return created;
+  });
+  await requestRecheck(db, opts.roundId, { alreadyMarked: true });
   return out;
 }
 
 export async function editRun(db: Database, opts: { runId: string; roundId: string; input: unknown; origin: RunOrigin; userId: string; expectedVersion?: number }) {
   await draftRoundById(db, opts.roundId);
   const record = parseRunRecord(opts.input);
-  const out = await db.transaction((tx) => reviseRun(tx, { ...opts, record }));
-  await recheckRound(db, opts.roundId);
+  const out = await db.transaction(async (tx) => {
+    const revised = await reviseRun(tx, { ...opts, record });
+    await markRoundChanged(tx, opts.roundId);
+    return revised;
+  });
+  await requestRecheck(db, opts.roundId, { alreadyMarked: true });
   return out;
 }
 
@@ -67,20 +76,31 @@ export async function importNamelist(
 
 export async function addClaim(db: Database, roundId: string, input: ClaimInput) {
   await draftRoundById(db, roundId);
-  const row = await createClaim(db, roundId, input);
-  await recheckRound(db, roundId);
+  const row = await db.transaction(async (tx) => {
+    const created = await createClaim(tx, roundId, input);
+    await markRoundChanged(tx, roundId);
+    return created;
+  });
+  await requestRecheck(db, roundId, { alreadyMarked: true });
   return row;
 }
 
 export async function changeClaim(db: Database, roundId: string, claimId: string, version: number, input: ClaimInput) {
   await draftRoundById(db, roundId);
-  const row = await updateClaim(db, roundId, claimId, version, input);
-  await recheckRound(db, roundId);
+  const row = await db.transaction(async (tx) => {
+    const updated = await updateClaim(tx, roundId, claimId, version, input);
+    await markRoundChanged(tx, roundId);
+    return updated;
+  });
+  await requestRecheck(db, roundId, { alreadyMarked: true });
   return row;
 }
 
 export async function removeClaim(db: Database, roundId: string, claimId: string) {
   await draftRoundById(db, roundId);
-  await deleteClaim(db, roundId, claimId);
-  await recheckRound(db, roundId);
+  await db.transaction(async (tx) => {
+    await deleteClaim(tx, roundId, claimId);
+    await markRoundChanged(tx, roundId);
+  });
+  await requestRecheck(db, roundId, { alreadyMarked: true });
 }

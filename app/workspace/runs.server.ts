@@ -80,7 +80,7 @@ export async function reviseRun(
   await tx
     .insert(roundRuns)
     .values({ roundId: opts.roundId, runId: run.id, runVersionId: version!.id })
-    .onConflictDoUpdate({ target: [roundRuns.roundId, roundRuns.runId], set: { runVersionId: version!.id } });
+    .onConflictDoUpdate({ target: [roundRuns.roundId, roundRuns.runId], set: { runVersionId: version!.id, checkedKey: null } });
   return { run, version: version! };
 }
 
@@ -95,6 +95,7 @@ export async function roundRunList(db: Tx | import("~db/client").Database, round
       record: runVersions.record,
       origin: runVersions.origin,
       updatedAt: runVersions.createdAt,
+      checkedKey: roundRuns.checkedKey,
     })
     .from(roundRuns)
     .innerJoin(runs, eq(runs.id, roundRuns.runId))

@@ -1,6 +1,6 @@
 import { absoluteUrl } from "~/mail/links.server";
 import { href } from "react-router";
-import { and, asc, eq, inArray, isNull, ne } from "drizzle-orm";
+import { and, asc, eq, inArray, isNull, ne, sql } from "drizzle-orm";
 import type { Database } from "~db/client";
 import { contributors, flags, rounds, submissionMembers, submissions, user, venueMembers, venues } from "~db/schema";
 import { env } from "~/config/env.server";
@@ -23,9 +23,16 @@ export async function unansweredMismatches(db: Database, roundId: string) {
  * the editors' mail — all in one transaction, guarded by the round's version.
  */
 export async function sendRound(db: Database, opts: { roundId: string; userId: string; expectedVersion: number }) {
-  const [state] = await db.select({ checkError: rounds.checkError }).from(rounds).where(eq(rounds.id, opts.roundId));
+  const [state] = await db
+    .select({ checkError: rounds.checkError, changeSeq: rounds.changeSeq, checkedSeq: rounds.checkedSeq })
+    .from(rounds)
+    .where(eq(rounds.id, opts.roundId));
   if (state?.checkError) {
     throw new StateConflict(`The last check of this round failed (${state.checkError}), so its flags are out of date; fix the problem so the round can be checked, then send it.`);
+  }
+  // Flags must describe what is sent: while a change is still being checked, sending waits.
+  if (state && state.checkedSeq < state.changeSeq) {
+    throw new StateConflict("The checker is still checking your last change; its flags appear on this page in a few seconds. Send the round once they have.");
   }
   const blocking = await unansweredMismatches(db, opts.roundId);
   if (blocking.length) {
@@ -37,7 +44,7 @@ export async function sendRound(db: Database, opts: { roundId: string; userId: s
     const [round] = await tx
       .update(rounds)
       .set({ state: "sent", sentAt: new Date(), sentBy: opts.userId, version: opts.expectedVersion + 1 })
-      .where(and(eq(rounds.id, opts.roundId), eq(rounds.state, "draft"), eq(rounds.version, opts.expectedVersion)))
+      .where(and(eq(rounds.id, opts.roundId), eq(rounds.state, "draft"), eq(rounds.version, opts.expectedVersion), isNull(rounds.checkError), sql`${rounds.checkedSeq} >= ${rounds.changeSeq}`))
       .returning();
     if (!round) throw new StateConflict("This round was already sent or changed by someone else: reload the page.");
     await freezeManuscript(tx, round.id, round.submissionId);

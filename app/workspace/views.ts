@@ -34,6 +34,10 @@ export type RunRow = {
   mismatch: number;
   caution: number;
   note: number;
+  /** the run's check has not landed yet: numbers blank, flags may describe an earlier version */
+  checking?: boolean;
+  /** when the version the round uses was made (ISO 8601) */
+  updatedAt?: string;
 };
 
 export type SeriesPlot = {

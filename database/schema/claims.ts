@@ -19,6 +19,8 @@ export const claims = pgTable(
     statement: text("statement").notNull().default(""),
     record: jsonb("record").notNull(),
     version: integer("version").notNull().default(1),
+    /** Digest of the inputs of this claim's stored flags (claim version, its runs' checks, policy). */
+    checkedKey: text("checked_key"),
     updatedAt: timestamp("updated_at", { withTimezone: true }).notNull().defaultNow(),
   },
   (t) => [index("claims_round_idx").on(t.roundId)],

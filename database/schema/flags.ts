@@ -2,6 +2,7 @@ import { index, jsonb, pgEnum, pgTable, text, timestamp, uuid } from "drizzle-or
 import { user } from "./auth";
 import { claims } from "./claims";
 import { rounds } from "./rounds";
+import { runVersions } from "./runs";
 
 export const severityEnum = pgEnum("flag_severity", ["mismatch", "caution", "note"]);
 
@@ -21,6 +22,8 @@ export const flags = pgTable(
     rule: text("rule").notNull(),
     severity: severityEnum("severity").notNull(),
     runLabel: text("run_label"),
+    /** For a run's own flags: the run version they were computed from. */
+    runVersionId: uuid("run_version_id").references(() => runVersions.id, { onDelete: "cascade" }),
     claimId: uuid("claim_id").references(() => claims.id, { onDelete: "cascade" }),
     quantities: text("quantities").array().notNull(),
     message: text("message").notNull(),

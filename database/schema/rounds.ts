@@ -33,6 +33,10 @@ export const rounds = pgTable(
     releasedAt: timestamp("released_at", { withTimezone: true }),
     /** When the flags were last recomputed, and a digest of the inputs they came from. */
     checkedAt: timestamp("checked_at", { withTimezone: true }),
+    /** Raised by every change of the round's runs, files or claims (in the change's transaction). */
+    changeSeq: integer("change_seq").notNull().default(0),
+    /** The `changeSeq` the stored flags describe; below `changeSeq` the round is "checking…". */
+    checkedSeq: integer("checked_seq").notNull().default(0),
     /**
      * Why the last re-check failed (null when it succeeded). While set, the stored flags are
      * from an earlier check and are shown as out of date, and the round cannot be sent.

@@ -1,4 +1,4 @@
-import { bigint, boolean, index, integer, jsonb, pgEnum, pgTable, primaryKey, text, timestamp, uniqueIndex, uuid } from "drizzle-orm/pg-core";
+import { bigint, boolean, doublePrecision, index, integer, jsonb, pgEnum, pgTable, primaryKey, text, timestamp, uniqueIndex, uuid } from "drizzle-orm/pg-core";
 import { user } from "./auth";
 import { storedFiles } from "./files";
 import { rounds } from "./rounds";
@@ -51,9 +51,26 @@ export const roundRuns = pgTable(
     runVersionId: uuid("run_version_id")
       .notNull()
       .references(() => runVersions.id, { onDelete: "restrict" }),
+    /** Inputs key of this run's flags stored in this round (see run_checks.inputs_key). */
+    checkedKey: text("checked_key"),
   },
   (t) => [primaryKey({ columns: [t.roundId, t.runId] })],
 );
+
+/** Statistics of one series column, as the checker's `analyseSeries` returns them. */
+export type StoredColumnStats = {
+  column: string; n: number; truncationIndex: number; truncationTime: number; truncationAtLimit: boolean;
+  mean: number; standardError: number; z: number; tau: number; ess: number;
+};
+export type AttachmentAnalysis =
+  | {
+      kind: "series";
+      /** MSER batch size the statistics were computed with (the venue policy's `mserBatch`) */
+      batch: number;
+      stats: { tStart: number; tEnd: number; dt: number; rows: number; windowStart: number; columns: Record<string, StoredColumnStats> } | null;
+    }
+  | { kind: "spectrum"; columns: Record<string, number[]> };
+export type AttachmentPlot = { columns: string[]; points: Record<string, { x: number; y: number }[]> };
 
 export const attachmentKindEnum = pgEnum("attachment_kind", ["series", "spectrum"]);
 
@@ -71,8 +88,14 @@ export const attachments = pgTable(
       .references(() => storedFiles.id, { onDelete: "restrict" }),
     columns: text("columns").array().notNull(),
     rowCount: bigint("row_count", { mode: "number" }).notNull(),
-    /** Parsed values kept for the checker and plots: { column: number[] }. */
-    data: jsonb("data").$type<Record<string, number[]>>().notNull(),
+    /**
+     * What the checker needs, computed once when the file arrived (the file itself stays in
+     * object storage): a series' statistics per column, or a spectrum's columns (one row per degree).
+     * Null until the analysis has run.
+     */
+    analysis: jsonb("analysis").$type<AttachmentAnalysis>(),
+    /** A downsampled copy for plots (at most a few thousand points), made with the analysis. */
+    plot: jsonb("plot").$type<AttachmentPlot>(),
     active: boolean("active").notNull().default(true),
     createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),
   },
@@ -87,3 +110,28 @@ export const namelistMaps = pgTable("namelist_maps", {
   map: jsonb("map").$type<Record<string, string>>().notNull(),
   updatedAt: timestamp("updated_at", { withTimezone: true }).notNull().defaultNow(),
 });
+
+/**
+ * The checker's view of one run version under its venue's policy: derived numbers (the runs
+ * table sorts on the typed columns) and the key of the inputs they came from. Written by the
+ * check job; pages and the API only read it.
+ */
+export const runChecks = pgTable(
+  "run_checks",
+  {
+    runVersionId: uuid("run_version_id")
+      .primaryKey()
+      .references(() => runVersions.id, { onDelete: "cascade" }),
+    /** Digest of policy, record version and attached analyses: unchanged key, nothing to re-check. */
+    inputsKey: text("inputs_key").notNull(),
+    derived: jsonb("derived").$type<Record<string, unknown>>().notNull(),
+    e: doublePrecision("e"),
+    ra: doublePrecision("ra"),
+    raRotating: doublePrecision("ra_rotating"),
+    pr: doublePrecision("pr"),
+    pm: doublePrecision("pm"),
+    rm: doublePrecision("rm"),
+    runLengthMagnetic: doublePrecision("run_length_magnetic"),
+    checkedAt: timestamp("checked_at", { withTimezone: true }).notNull().defaultNow(),
+  },
+);

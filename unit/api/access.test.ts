@@ -24,6 +24,8 @@ import * as submissionRoute from "~/routes/api/v1/submission";
 import * as submissionsRoute from "~/routes/api/v1/submissions";
 import { RATE_LIMIT_PER_MINUTE } from "~/api/rate-limit.server";
 import { hashToken, revokeApiToken } from "~/api/tokens.server";
+import { recheckRound } from "~/workspace/recheck.server";
+import { and } from "drizzle-orm";
 import { testDatabase } from "../support/test-db";
 import { call, makeWorld } from "./fixture";
 
@@ -49,6 +51,12 @@ let p: { submissionId: string; round: string };
 let sentP: { submissionId: string; round: string };
 let runId = "";
 let claimId = "";
+
+/** What a worker does after each write: the round's check (the API answers before it). */
+async function checkDraftRound() {
+  const [r] = await db.select({ id: rounds.id }).from(rounds).where(and(eq(rounds.submissionId, w.submission.id), eq(rounds.number, 2)));
+  await recheckRound(db, r!.id);
+}
 
 beforeAll(async () => {
   w = await makeWorld(db, tag, "double");
@@ -78,10 +86,17 @@ describe("writing through the API", () => {
     runId = res.body.id;
     expect(res.body.version).toBe(1);
     expect(res.headers.get("etag")).toBe('"1"');
+    // The write answers at once; the check lands when a worker has run it.
+    const round = await call(roundRoute, db, { url: base, params: p, token: tokens.read });
+    expect(round.body.checking).toBe(true);
+    await checkDraftRound();
+    const checked = await call(roundRoute, db, { url: base, params: p, token: tokens.read });
+    expect(checked.body.checking).toBe(false);
+    const detail = await call(runRoute, db, { url: `${base}/runs/${runId}`, params: { ...p, runId }, token: tokens.read });
     // 0.45 viscous times = 0.45 / Pm magnetic diffusion times (t_eta = L^2/eta = Pm L^2/nu).
-    expect(res.body.derived.runLength.magnetic).toBeCloseTo(0.45 / 2, 12);
+    expect(detail.body.derived.runLength.magnetic).toBeCloseTo(0.45 / 2, 12);
     // Pm = nu / eta = 1.25 from the material (definition of the magnetic Prandtl number), 2 stated.
-    const pm = res.body.flags.find((f: { rule: string }) => f.rule === "A.pm-from-diffusivities");
+    const pm = detail.body.flags.find((f: { rule: string }) => f.rule === "A.pm-from-diffusivities");
     expect(pm?.severity).toBe("mismatch");
     expect(pm?.detail.expected).toBeCloseTo(1e-6 / 0.8e-6, 12);
   });
@@ -112,7 +127,9 @@ describe("writing through the API", () => {
     const next = await call(runRoute, db, { method: "PUT", url: `${base}/runs/${runId}`, params: { ...p, runId }, token: tokens.write, headers: { "if-match": '"1"' }, body: JSON.stringify(run("S1", 1.25)) });
     expect(next.status, JSON.stringify(next.body)).toBe(200);
     expect(next.body.version).toBe(2);
-    expect(next.body.flags.map((f: { rule: string }) => f.rule)).not.toContain("A.pm-from-diffusivities");
+    await checkDraftRound();
+    const after = await call(runRoute, db, { url: `${base}/runs/${runId}`, params: { ...p, runId }, token: tokens.read });
+    expect(after.body.flags.map((f: { rule: string }) => f.rule)).not.toContain("A.pm-from-diffusivities");
     const stale = await call(runRoute, db, { method: "PUT", url: `${base}/runs/${runId}`, params: { ...p, runId }, token: tokens.coauthor, body: JSON.stringify({ expectedVersion: 1, record: run("S1", 3) }) });
     expect(stale.status).toBe(409);
     expect(stale.body.error.code).toBe("conflict");
@@ -135,6 +152,7 @@ describe("writing through the API", () => {
 
   it("lists flags with filters", async () => {
     await call(runsRoute, db, { method: "POST", url: `${base}/runs`, params: p, token: tokens.write, body: JSON.stringify(run("S2")) });
+    await checkDraftRound();
     const all = await call(flagsRoute, db, { url: `${base}/flags`, params: p, token: tokens.read });
     expect(all.status).toBe(200);
     expect(all.body.advisory).toMatch(/advisory/);

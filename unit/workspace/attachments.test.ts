@@ -4,6 +4,7 @@ import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { attachments, flags, rounds, storedFiles, submissions, user, venues } from "~db/schema";
 import { env } from "~/config/env.server";
 import { attachCsv } from "~/workspace/attachments.server";
+import { recheckRound } from "~/workspace/recheck.server";
 import { addRun, editRun } from "~/workspace/run-edits.server";
 import { roundRunList } from "~/workspace/runs.server";
 import { createSubmission } from "~/workspace/submissions.server";
@@ -98,6 +99,12 @@ describe("attachCsv", () => {
     expect(rows.filter((r) => r.attachments.active).map((r) => r.attachments.id)).toEqual([second.attachmentId]);
     expect(rows.find((r) => r.attachments.id === second.attachmentId)!.stored_files.size).toBe(new TextEncoder().encode(series(60)).byteLength);
     expect(await objectsOfRound()).toBe(2);
+    // The upload only queued the check; the worker's pass analyses the active file once.
+    expect(rows.every((r) => r.attachments.analysis === null)).toBe(true);
+    await recheckRound(db, ctx.roundId);
+    const [analysed] = await db.select().from(attachments).where(eq(attachments.id, second.attachmentId));
+    expect(analysed!.analysis).toMatchObject({ kind: "series", stats: { rows: 60, tStart: 0, tEnd: 5.9 } });
+    expect(analysed!.plot!.points.kineticEnergy).toHaveLength(60);
     // The series (t = 0 … 5.9) disagrees with the record's time (0 … 4.9): the checker saw the upload.
     const spans = await db.select().from(flags).where(and(eq(flags.roundId, ctx.roundId), eq(flags.rule, "D.series-span")));
     expect(spans).toHaveLength(1);
@@ -124,6 +131,7 @@ describe("attachCsv", () => {
     const kept = await db.select().from(attachments).where(and(eq(attachments.runVersionId, after!.versionId), eq(attachments.active, true)));
     expect(kept.map((k) => k.rowCount)).toEqual([60]);
     // The time now matches the series, so the span flag is gone after the re-check.
+    await recheckRound(db, ctx.roundId);
     expect(await db.select().from(flags).where(and(eq(flags.roundId, ctx.roundId), eq(flags.rule, "D.series-span")))).toHaveLength(0);
   });
 });

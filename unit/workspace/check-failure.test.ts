@@ -116,8 +116,9 @@ describe("a failed check never leaves stale flags shown as current", () => {
     const [r] = await db.select({ version: rounds.version }).from(rounds).where(eq(rounds.id, w.draft.id));
     await expect(sendRound(db, { roundId: w.draft.id, userId: w.people.author.id, expectedVersion: r!.version })).rejects.toBeInstanceOf(StateConflict);
 
-    // Removing the bad claim: the next check succeeds and clears the state.
+    // Removing the bad claim: the next check (the worker's job, run here) succeeds and clears the state.
     await removeClaim(db, w.draft.id, legacy!.id);
+    expect((await recheckRound(db, w.draft.id)).checkError).toBeNull();
     expect((await roundState(w.draft.id)).checkError).toBeNull();
   });
 });

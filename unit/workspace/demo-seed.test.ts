@@ -87,7 +87,7 @@ describe("the seeded demo", () => {
     // Something to do for each sign-in listed in the README.
     for (const key of ["author", "coauthor1", "coauthor2"]) {
       const d = await dashboardFor(db, id(key));
-      expect([...d.authored, ...d.coAuthored].some((s) => s.stage === "draft"), `${key} has a draft to work on`).toBe(true);
+      expect([...d.authored.items, ...d.coAuthored.items].some((s) => s.stage === "draft"), `${key} has a draft to work on`).toBe(true);
     }
     for (const key of ["reviewer1", "reviewer2"]) expect((await myReviews(db, id(key))).some((r) => r.state === "in-progress"), `${key} has a report to write`).toBe(true);
     const queue = await deskQueue(db, again.venueId);

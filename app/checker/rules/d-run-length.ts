@@ -79,12 +79,12 @@ export function checkRunLength(ctx: RunContext): Flag[] {
 
 function checkSeriesSpan(ctx: RunContext): Flag[] {
   const t = ctx.run.time;
-  const s = ctx.seriesColumns?.t;
-  if (!s || s.length < 2 || t?.start === undefined || t.end === undefined) return [];
-  const first = s[0] ?? 0;
-  const last = s[s.length - 1] ?? 0;
-  const dts = s.slice(1).map((v, i) => v - (s[i] ?? 0)).sort((a, b) => a - b);
-  const dt = dts[Math.floor(dts.length / 2)] ?? 0;
+  // The series' span and median step come from its stored analysis (computed once on arrival).
+  const s = ctx.series;
+  if (!s || s.rows < 2 || t?.start === undefined || t.end === undefined) return [];
+  const first = s.tStart;
+  const last = s.tEnd;
+  const dt = s.dt;
   const slack = Math.max(ctx.policy.seriesSpanTolerance * (t.end - t.start), 1.5 * dt);
   if (Math.abs(first - t.start) <= slack && Math.abs(last - t.end) <= slack) return [];
   return [flagOf(RULES_D.seriesSpan, "mismatch", ["time.start", "time.end", "series.t"],

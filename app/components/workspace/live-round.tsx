@@ -2,9 +2,11 @@ import { useEffect, useRef } from "react";
 import { href, useRevalidator } from "react-router";
 
 /** Every change to a round's runs, series or claims re-checks it, so `checkedAt` moves with them. */
-type RoundState = { checkedAt: string | null; state: string };
+type RoundState = { checkedAt: string | null; state: string; checking?: boolean };
 
 const POLL_MS = 4000;
+/** While a change is being checked, the page looks for its results more often. */
+const CHECKING_POLL_MS = 1000;
 
 /**
  * Keeps a round's pages current when its runs change elsewhere — a script pushing runs through
@@ -24,6 +26,7 @@ export function LiveRound({ submissionId, round, loaded }: { submissionId: strin
   busy.current = revalidator.state !== "idle";
   const { revalidate } = revalidator;
   const url = href("/api/v1/submissions/:submissionId/rounds/:round", { submissionId, round: String(round) });
+  const checking = Boolean(loaded.checking);
 
   useEffect(() => {
     let inFlight = false;
@@ -34,21 +37,21 @@ export function LiveRound({ submissionId, round, loaded }: { submissionId: strin
         const res = await fetch(url, { headers: { accept: "application/json" } });
         if (!res.ok) return;
         const fresh = (await res.json()) as RoundState;
-        if (fresh.checkedAt !== seen.current.checkedAt || fresh.state !== seen.current.state) await revalidate();
+        if (fresh.checkedAt !== seen.current.checkedAt || fresh.state !== seen.current.state || Boolean(fresh.checking) !== Boolean(seen.current.checking)) await revalidate();
       } catch {
         // Offline or the server restarting: the next tick tries again.
       } finally {
         inFlight = false;
       }
     };
-    const timer = window.setInterval(tick, POLL_MS);
+    const timer = window.setInterval(tick, checking ? CHECKING_POLL_MS : POLL_MS);
     const onVisible = () => void tick();
     document.addEventListener("visibilitychange", onVisible);
     return () => {
       window.clearInterval(timer);
       document.removeEventListener("visibilitychange", onVisible);
     };
-  }, [url, revalidate]);
+  }, [url, revalidate, checking]);
 
   return null;
 }

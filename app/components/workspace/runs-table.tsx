@@ -2,7 +2,7 @@ import { Link } from "react-router";
 import type { RunRow } from "~/workspace/views";
 import { useRunsPage } from "./use-runs-page";
 
-const COLUMNS: { key: keyof RunRow; label: string; numeric?: boolean }[] = [
+const COLUMNS: { key: Exclude<keyof RunRow, "checking" | "updatedAt">; label: string; numeric?: boolean }[] = [
   { key: "label", label: "Run" },
   { key: "version", label: "Version", numeric: true },
   { key: "E", label: "E", numeric: true },
@@ -50,6 +50,7 @@ export function RunsTable({ rows, runHref, csvHref, source }: { rows: RunRow[]; 
                   c.key === "label" ? (
                     <th key={c.key} scope="row" className="py-1 pr-3">
                       <Link to={runHref(r)}>{r.label}</Link>
+                      {r.checking ? <span className="ml-1 font-normal text-basalt-soft">(checking…)</span> : null}
                     </th>
                   ) : (
                     <td key={c.key} className={`py-1 pr-3 ${c.key === "mismatch" && r.mismatch ? "font-semibold text-ember" : ""}`}>

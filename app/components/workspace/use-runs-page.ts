@@ -4,7 +4,7 @@ import type { RunRow } from "~/workspace/views";
 
 export const RUNS_PAGE_SIZE = 25;
 
-type SortKey = Exclude<keyof RunRow, "runId" | "origin">;
+export type SortKey = Exclude<keyof RunRow, "runId" | "origin" | "checking" | "updatedAt">;
 type ApiItem = {
   id: string;
   label: string;

@@ -3,7 +3,7 @@ import { data, Form, href, Link } from "react-router";
 import { venues } from "~db/schema";
 import { requireDesk } from "~/access/page-guards.server";
 import { AdvisoryNote } from "~/components/advisory-note";
-import { deskQueue } from "~/review/desk.server";
+import { deskPage, parseDeskCursor } from "~/review/desk.server";
 import { QUEUE_GROUPS } from "~/review/states";
 import { PolicyFields } from "~/components/review/policy-fields";
 import { parsePolicyForm } from "~/review/policy-form";
@@ -16,7 +16,10 @@ export async function loader(args: Route.LoaderArgs) {
   const { db } = await requireDesk(args);
   const [venue] = await db.select().from(venues).where(eq(venues.id, args.params.venueId));
   if (!venue) throw data("Not found", { status: 404 });
-  return { venue: { id: venue.id, name: venue.name, blinding: venue.blinding, policy: venue.checkerPolicy }, queue: await deskQueue(db, venue.id) };
+  // `?after-sent=…` (and likewise per state) pages one column with a cursor; the others stay on their first page.
+  const url = new URL(args.request.url);
+  const cursors = Object.fromEntries(QUEUE_GROUPS.map((g) => [g.state, parseDeskCursor(url.searchParams.get(`after-${g.state}`))]));
+  return { venue: { id: venue.id, name: venue.name, blinding: venue.blinding, policy: venue.checkerPolicy }, desk: await deskPage(db, venue.id, cursors) };
 }
 
 export async function action(args: Route.ActionArgs) {
@@ -30,19 +33,19 @@ export async function action(args: Route.ActionArgs) {
 }
 
 export default function Desk({ loaderData, actionData }: Route.ComponentProps) {
-  const { venue, queue } = loaderData;
+  const { venue, desk } = loaderData;
   return (
     <main className="mx-auto max-w-6xl p-gutter">
       <h1 className="text-title">Editor's desk · {venue.name}</h1>
       <p className="mt-1 text-caption text-basalt-soft">Review is {venue.blinding}-blind at this venue.</p>
       <AdvisoryNote className="mt-3" />
       <div className="mt-6 grid gap-4 lg:grid-cols-4">
-        {QUEUE_GROUPS.map((g) => {
-          const items = queue.filter((q) => q.state === g.state);
+        {desk.groups.map((g) => {
+          const items = g.items;
           return (
             <section key={g.state} className="card" data-testid={`queue-${g.state}`} aria-labelledby={`q-${g.state}`}>
               <h2 id={`q-${g.state}`} className="text-lead">
-                {g.label} <span className="text-caption">({items.length})</span>
+                {g.label} <span className="text-caption">({g.total})</span>
               </h2>
               <ul className="mt-2 divide-y divide-rule">
                 {items.map((q) => (
@@ -60,6 +63,12 @@ export default function Desk({ loaderData, actionData }: Route.ComponentProps) {
                   </li>
                 ))}
               </ul>
+              {g.paged || g.next ? (
+                <p className="mt-2 flex gap-3 text-caption">
+                  {g.paged ? <Link to="?">Newest</Link> : null}
+                  {g.next ? <Link to={`?after-${g.state}=${encodeURIComponent(g.next)}`}>Older rounds</Link> : null}
+                </p>
+              ) : null}
             </section>
           );
         })}

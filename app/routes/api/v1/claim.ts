@@ -9,7 +9,7 @@ import { claimUpdateSchema } from "~/api/schemas";
 import { claimOut } from "~/api/views.server";
 import { dbContext } from "~/db.server";
 import { updateClaim } from "~/workspace/claims.server";
-import { recheckRound } from "~/workspace/recheck.server";
+import { requestRecheck } from "~/workspace/recheck.server";
 import type { Route } from "./+types/claim";
 
 async function claimOfRound(db: Database, roundId: string, claimId: string | undefined) {
@@ -39,7 +39,7 @@ export function action({ request, context, params }: Route.ActionArgs) {
     await claimOfRound(db, round.id, params.claimId);
     const body = await parseBody(request, claimUpdateSchema, "The claim update is not valid.");
     const row = await updateClaim(db, round.id, params.claimId!, body.version, body);
-    await recheckRound(db, round.id);
+    await requestRecheck(db, round.id);
     return Response.json(claimOut(row), { headers: { etag: `"${row.version}"` } });
   });
 }

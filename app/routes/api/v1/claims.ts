@@ -6,7 +6,7 @@ import { methodNotAllowed, parseBody } from "~/api/input.server";
 import { claimWriteSchema } from "~/api/schemas";
 import { dbContext } from "~/db.server";
 import { createClaim, roundClaims } from "~/workspace/claims.server";
-import { recheckRound } from "~/workspace/recheck.server";
+import { requestRecheck } from "~/workspace/recheck.server";
 import type { Route } from "./+types/claims";
 
 /** GET …/rounds/:round/claims — the round's claims in manuscript order. */
@@ -28,7 +28,7 @@ export function action({ request, context, params }: Route.ActionArgs) {
     const { round } = await roundForApi(db, caller.userId, params, "write-claims");
     const body = await parseBody(request, claimWriteSchema, "The claim is not valid.");
     const row = await createClaim(db, round.id, body);
-    await recheckRound(db, round.id);
+    await requestRecheck(db, round.id);
     return Response.json(claimOut(row), { status: 201, headers: { etag: `"${row.version}"` } });
   });
 }

@@ -30,6 +30,7 @@ export function loader({ request, context, params }: Route.LoaderArgs) {
       runCount: runs?.n ?? 0,
       claimCount: claimCount?.n ?? 0,
       flagCounts: counts.total,
+      checking: round.checkedSeq < round.changeSeq,
     });
   });
 }

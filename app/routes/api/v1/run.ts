@@ -8,7 +8,7 @@ import { ifMatchVersion, methodNotAllowed, parseBody } from "~/api/input.server"
 import { runDetail } from "~/api/run-detail.server";
 import { runPutSchemaFor, type runPutBodySchema } from "~/api/schemas";
 import { dbContext } from "~/db.server";
-import { recheckRound } from "~/workspace/recheck.server";
+import { requestRecheck } from "~/workspace/recheck.server";
 import { reviseRun } from "~/workspace/runs.server";
 import { InvalidInput } from "~/workspace/types";
 import { zodIssues } from "~/workspace/zod-issues";
@@ -57,7 +57,7 @@ export function action({ request, context, params }: Route.ActionArgs) {
       ]);
     }
     await db.transaction((tx) => reviseRun(tx, { runId, roundId: round.id, record, origin: "api", userId: caller.userId, expectedVersion }));
-    await recheckRound(db, round.id);
+    await requestRecheck(db, round.id);
     const body = await runDetail(db, round.id, runId);
     return Response.json(body, { headers: { etag: `"${body.version}"` } });
   });

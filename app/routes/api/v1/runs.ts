@@ -7,7 +7,7 @@ import { runDetail } from "~/api/run-detail.server";
 import { runPage } from "~/api/run-list.server";
 import { runSchema } from "~/checker/schema";
 import { dbContext } from "~/db.server";
-import { recheckRound } from "~/workspace/recheck.server";
+import { requestRecheck } from "~/workspace/recheck.server";
 import { createRun } from "~/workspace/runs.server";
 import type { Route } from "./+types/runs";
 
@@ -37,7 +37,7 @@ export function action({ request, context, params }: Route.ActionArgs) {
     const created = await db.transaction((tx) =>
       createRun(tx, { submissionId: submission.id, roundId: round.id, record, origin: "api", userId: caller.userId }),
     );
-    await recheckRound(db, round.id);
+    await requestRecheck(db, round.id);
     const body = await runDetail(db, round.id, created.run.id);
     return Response.json(body, { status: 201, headers: { etag: `"${body.version}"`, location: `${new URL(request.url).pathname}/${created.run.id}` } });
   });

@@ -16,7 +16,8 @@ export async function loader(args: Route.LoaderArgs) {
     ? await db.select({ severity: flags.severity, n: sql<number>`count(*)::int` }).from(flags).where(eq(flags.roundId, round.id)).groupBy(flags.severity)
     : [];
   return {
-    round: { number: round.number, state: round.state, checkedAt: round.checkedAt?.toISOString() ?? null },
+    // checking: a change not yet checked by the worker; flags and numbers describe the round before it.
+    round: { number: round.number, state: round.state, checkedAt: round.checkedAt?.toISOString() ?? null, checking: round.checkedSeq < round.changeSeq },
     tabs: {
       flags: access.can("read-flags"),
       runs: access.can("read-runs"),
@@ -92,6 +93,11 @@ export default function RoundLayout({ loaderData: d, params }: Route.ComponentPr
           </NavLink>
         ) : null}
       </nav>
+      {tabs.flags && d.round.checking ? (
+        <p role="status" className="mt-2 text-caption text-basalt-soft" data-testid="round-checking">
+          Checking… the flags and numbers below describe the round before its last change; this page updates by itself when the check is done.
+        </p>
+      ) : null}
       {tabs.flags ? <LiveRound submissionId={params.submissionId} round={d.round.number} loaded={d.round} /> : null}
       <div className="mt-4">
         <Outlet />

@@ -1,7 +1,7 @@
 import { Form, href, redirect } from "react-router";
 import { requireRound } from "~/access/page-guards.server";
 import { FlagsPanel } from "~/components/workspace/flags-panel";
-import { ParameterSpaceChart } from "~/components/workspace/plots";
+import { ParameterSpaceChart } from "~/components/workspace/lazy-plots";
 import { serviceError } from "~/workspace/action-errors.server";
 import { roundClaims } from "~/workspace/claims.server";
 import { roundFlags } from "~/workspace/flags-query.server";

@@ -9,7 +9,7 @@ import { RemarkForm, type AnchorOption } from "~/components/review/remark-form";
 import { RichText } from "~/components/review/rich-text";
 import { RichTextEditor } from "~/components/review/rich-text-editor";
 import { VerdictButtons } from "~/components/review/verdict-buttons";
-import { SeriesChart, SpectrumChart } from "~/components/workspace/plots";
+import { SeriesChart, SpectrumChart } from "~/components/workspace/lazy-plots";
 import { RunsTable } from "~/components/workspace/runs-table";
 import { asActionError } from "~/workspace/action-errors.server";
 import { respondAsInvitee } from "~/review/invitations.server";

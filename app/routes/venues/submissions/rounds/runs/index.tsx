@@ -1,6 +1,6 @@
 import { data, Form, href, redirect } from "react-router";
 import { requireRound } from "~/access/page-guards.server";
-import { ParameterSpaceChart } from "~/components/workspace/plots";
+import { ParameterSpaceChart } from "~/components/workspace/lazy-plots";
 import { IssueList, RunForm } from "~/components/workspace/run-form";
 import { RunsTable } from "~/components/workspace/runs-table";
 import { serviceError } from "~/workspace/action-errors.server";

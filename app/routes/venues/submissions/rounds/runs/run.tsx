@@ -1,6 +1,6 @@
 import { data, href } from "react-router";
 import { FlagsPanel } from "~/components/workspace/flags-panel";
-import { SeriesChart, SpectrumChart } from "~/components/workspace/plots";
+import { SeriesChart, SpectrumChart } from "~/components/workspace/lazy-plots";
 import { RunForm } from "~/components/workspace/run-form";
 import { CsvUpload } from "~/components/workspace/upload";
 import type { RunRecord } from "~/checker/schema";
@@ -97,7 +97,12 @@ export default function Run({ loaderData: d, actionData, params }: Route.Compone
         <h3 id="plots-h" className="text-lead">
           Series and spectra
         </h3>
-        {d.plots.series ? <SeriesChart plot={d.plots.series} title="Time series" /> : <p className="text-caption">No time series attached.</p>}
+        {d.plots.analysing ? (
+          <p role="status" className="text-caption" data-testid="file-analysing">
+            Analysing the uploaded file… its plot and statistics appear here when the check is done.
+          </p>
+        ) : null}
+        {d.plots.series ? <SeriesChart plot={d.plots.series} title="Time series" /> : d.plots.analysing ? null : <p className="text-caption">No time series attached.</p>}
         {d.plots.spectrum ? <SpectrumChart plot={d.plots.spectrum} title="Spectrum" /> : <p className="text-caption">No spectrum attached.</p>}
         {d.plots.files.length ? (
           <ul className="text-caption" data-testid="attachments">

@@ -1,0 +1,19 @@
+// Preloaded into the benchmarked server (`node --import`): event-loop delay and peak RSS.
+// SIGUSR2 writes the figures since the last signal to $LOOP_STATS_FILE and starts afresh.
+import { writeFileSync } from "node:fs";
+import { monitorEventLoopDelay } from "node:perf_hooks";
+
+const file = process.env.LOOP_STATS_FILE;
+if (file) {
+  const h = monitorEventLoopDelay({ resolution: 10 });
+  h.enable();
+  let peakRss = process.memoryUsage.rss();
+  const sampler = setInterval(() => (peakRss = Math.max(peakRss, process.memoryUsage.rss())), 50);
+  sampler.unref();
+  process.on("SIGUSR2", () => {
+    peakRss = Math.max(peakRss, process.memoryUsage.rss());
+    writeFileSync(file, JSON.stringify({ p99Ms: h.percentile(99) / 1e6, maxMs: h.max / 1e6, peakRssMb: peakRss / 1048576, at: Date.now() }));
+    h.reset();
+    peakRss = process.memoryUsage.rss();
+  });
+}
