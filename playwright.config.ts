@@ -1,3 +1,4 @@
+import { randomBytes } from "node:crypto";
 import { defineConfig } from "@playwright/test";
 
 const port = Number(process.env.E2E_PORT ?? 3100);
@@ -41,6 +42,8 @@ export default defineConfig({
       NODE_ENV: "production",
       APP_URL: baseURL,
       DATABASE_URL: databaseUrl,
+      // Production refuses the public development secret; each run signs with its own.
+      AUTH_SECRET: process.env.AUTH_SECRET ?? randomBytes(32).toString("hex"),
       AUTH_RATE_LIMIT: "false",
       OUTBOX_POLL_MS: "300",
     },

@@ -47,6 +47,24 @@ export PG_HOST PG_PORT PG_APP_USER PG_APP_PASSWORD PG_APP_DB PG_TEST_DB PG_SUPER
   SMTP_PORT MAILDEV_WEB_PORT S3_PORT S3_BUCKET S3_ENDPOINT S3_ACCESS_KEY_ID \
   S3_SECRET_ACCESS_KEY S3_REGION RUNPROOF_DATABASE_URL RUNPROOF_TEST_DATABASE_URL
 
+# --- secrets ------------------------------------------------------------------------
+
+# rp_ensure_auth_secret [FILE] -- print the server's signing secret, creating a random one
+# (256 bits, hex) in FILE on first use and reusing it afterwards. Only the owner may read it.
+rp_ensure_auth_secret() {
+  local file="${1:-$RUNPROOF_DATA/auth-secret}" secret=""
+  if [[ -s "$file" ]]; then
+    secret="$(tr -d '[:space:]' <"$file")"
+  fi
+  if (( ${#secret} < 32 )); then
+    mkdir -p -- "$(dirname -- "$file")"
+    secret="$(od -An -N32 -tx1 /dev/urandom | tr -d ' \n')"
+    (umask 077 && printf '%s\n' "$secret" >"$file.tmp") && mv -f -- "$file.tmp" "$file"
+  fi
+  chmod 600 -- "$file" 2>/dev/null || true
+  printf '%s\n' "$secret"
+}
+
 # --- messages ----------------------------------------------------------------------
 
 RUNPROOF_QUIET="${RUNPROOF_QUIET:-}"
