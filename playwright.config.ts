@@ -32,7 +32,7 @@ export default defineConfig({
   },
   webServer: {
     // The production build, as users get it; `npm test` builds it just before.
-    command: "node ./node_modules/@react-router/serve/bin.js build/server/index.js",
+    command: "node scripts/serve.mjs",
     url: `${baseURL}/healthz`,
     reuseExistingServer: false,
     timeout: 60_000,

@@ -28,13 +28,17 @@ if (env.OUTBOX_WORKER && !g.__runproofWorker) {
   });
 }
 
-for (const signal of ["SIGTERM", "SIGINT"] as const) {
-  process.once(signal, () => {
-    const boss = g.__runproofBoss ?? Promise.resolve(null);
-    void boss
-      .then((b) => b?.stop({ graceful: true, timeout: 5000 }))
-      .catch(() => {})
-      .then(() => sqlClient.end({ timeout: 5 }))
-      .finally(() => process.exit(0));
-  });
+/** Stops the job runner and closes the pool; the server entry calls it once requests have drained. */
+export async function closeDatabaseAndJobs(): Promise<void> {
+  const boss = await (g.__runproofBoss ?? Promise.resolve(null)).catch(() => null);
+  await boss?.stop({ graceful: true, timeout: 5000 }).catch(() => {});
+  await sqlClient.end({ timeout: 5 });
+}
+
+// Under the server entry (scripts/serve.mjs) the server drains requests first and then calls
+// closeDatabaseAndJobs; under the development server this module stops the process itself.
+if (!(globalThis as { __runproofServerOwnsShutdown?: boolean }).__runproofServerOwnsShutdown) {
+  for (const signal of ["SIGTERM", "SIGINT"] as const) {
+    process.once(signal, () => void closeDatabaseAndJobs().catch(() => {}).finally(() => process.exit(0)));
+  }
 }

@@ -2,6 +2,7 @@ import { Links, Meta, Outlet, Scripts, ScrollRestoration } from "react-router";
 import type { Route } from "./+types/root";
 import { dbMiddleware } from "./middleware.server";
 import { ErrorView } from "./components/error-view";
+import { useNonce } from "./lib/nonce";
 import "./app.css";
 
 export const middleware: Route.MiddlewareFunction[] = [dbMiddleware];
@@ -11,6 +12,7 @@ export const meta: Route.MetaFunction = () => [{ title: "Runproof" }];
 export const links: Route.LinksFunction = () => [{ rel: "icon", href: "/favicon.svg", type: "image/svg+xml" }];
 
 export function Layout({ children }: { children: React.ReactNode }) {
+  const nonce = useNonce();
   return (
     <html lang="en">
       <head>
@@ -21,8 +23,8 @@ export function Layout({ children }: { children: React.ReactNode }) {
       </head>
       <body className="min-h-screen">
         {children}
-        <ScrollRestoration />
-        <Scripts />
+        <ScrollRestoration nonce={nonce} />
+        <Scripts nonce={nonce} />
       </body>
     </html>
   );

@@ -28,7 +28,7 @@ node_modules/.bin/tsx database/seed.ts
 node_modules/.bin/react-router build >/dev/null
 
 node_modules/.bin/tsx scripts/print-welcome.ts
-PORT="${PORT:-3000}" HOST=127.0.0.1 NODE_ENV=production node ./node_modules/@react-router/serve/bin.js build/server/index.js &
+PORT="${PORT:-3000}" HOST="${HOST:-127.0.0.1}" NODE_ENV=production node scripts/serve.mjs &
 server=$!
 # A background job of a script ignores Ctrl-C, so the script passes INT and TERM on as one TERM.
 trap 'kill -TERM "$server" 2>/dev/null || true' INT TERM

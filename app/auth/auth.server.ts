@@ -3,6 +3,7 @@ import { drizzleAdapter } from "better-auth/adapters/drizzle";
 import { admin } from "better-auth/plugins";
 import * as schema from "~db/schema";
 import { env } from "~/config/env.server";
+import { CLIENT_ADDRESS_HEADER } from "~/lib/client-address";
 import { db } from "~/db.server";
 import { enqueueMail } from "~/mail/outbox.server";
 import { resetPasswordMessage, verifyEmailMessage } from "~/mail/templates";
@@ -45,8 +46,10 @@ export const auth = betterAuth({
     max: 100,
   },
   advanced: {
-    // Behind a proxy the client address arrives in this header; without one all clients share a bucket.
-    ipAddress: { ipAddressHeaders: ["x-forwarded-for"] },
+    // The server entry sets this header from the socket (or the trusted proxy), replacing any sent.
+    ipAddress: { ipAddressHeaders: [CLIENT_ADDRESS_HEADER] },
+    // Secure cookies whenever the public address is https, whatever the hop from a proxy is.
+    useSecureCookies: env.APP_URL.startsWith("https://"),
   },
   plugins: [admin({ defaultRole: "user", adminRoles: ["admin"] })],
 });
