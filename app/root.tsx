@@ -1,11 +1,11 @@
 import { Links, Meta, Outlet, Scripts, ScrollRestoration } from "react-router";
 import type { Route } from "./+types/root";
-import { dbMiddleware } from "./middleware.server";
+import { dbMiddleware, edgeInputMiddleware } from "./middleware.server";
 import { ErrorView } from "./components/error-view";
 import { useNonce } from "./lib/nonce";
 import "./app.css";
 
-export const middleware: Route.MiddlewareFunction[] = [dbMiddleware];
+export const middleware: Route.MiddlewareFunction[] = [dbMiddleware, edgeInputMiddleware];
 
 export const meta: Route.MetaFunction = () => [{ title: "Runproof" }];
 

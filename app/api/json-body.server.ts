@@ -1,3 +1,4 @@
+import { findBadText } from "~/lib/edge-input";
 import { apiError } from "./errors.server";
 
 /**
@@ -26,11 +27,16 @@ export async function readJsonBody(request: Request, maxBytes: number): Promise<
     chunks.push(value);
   }
   const text = Buffer.concat(chunks).toString("utf8");
+  let parsed: unknown;
   try {
-    return JSON.parse(text);
+    parsed = JSON.parse(text);
   } catch (error) {
     throw apiError(400, "invalid_json", "The request body is not valid JSON.", [
       { path: "", message: error instanceof Error ? error.message : String(error) },
     ]);
   }
+  // NUL, control characters and lone surrogates are refused here, once, for every JSON route.
+  const bad = findBadText(parsed);
+  if (bad) throw apiError(400, "invalid_text", `The text at ${bad.path || "the top level"} cannot be stored: ${bad.message}.`, [bad]);
+  return parsed;
 }
