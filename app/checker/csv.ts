@@ -4,7 +4,7 @@
  * csv-parse; errors carry the line number. Streaming input: see csv-stream.ts.
  */
 import { CsvError, parse } from "csv-parse/sync";
-import type { Columns } from "./schema.ts";
+import { LIMITS, type Columns } from "./schema.ts";
 
 export type CsvKind = "series" | "spectrum";
 
@@ -17,7 +17,8 @@ export class CsvFormatError extends Error {
   }
 }
 
-export const CSV_OPTIONS = { info: true, skip_empty_lines: true, trim: true, bom: true } as const;
+// max_record_size bounds one line (a header of a million columns is refused at 64 KiB, not parsed).
+export const CSV_OPTIONS = { info: true, skip_empty_lines: true, trim: true, bom: true, max_record_size: 64 * 1024 } as const;
 
 const FIRST: Record<CsvKind, string> = { series: "t", spectrum: "l" };
 
@@ -29,6 +30,9 @@ export class ColumnBuilder {
 
   add(record: string[], line: number): void {
     if (this.names.length === 0) return this.header(record, line);
+    if ((this.cols[0]?.length ?? 0) >= LIMITS.seriesRows) {
+      throw new CsvFormatError(`the ${this.kind} has more than ${LIMITS.seriesRows.toLocaleString("en")} data rows; thin it (e.g. every n-th row) and upload again`, line);
+    }
     if (record.length !== this.names.length) {
       throw new CsvFormatError(`expected ${this.names.length} values (${this.names.join(", ")}), found ${record.length}`, line);
     }
@@ -55,6 +59,9 @@ export class ColumnBuilder {
       throw new CsvFormatError(`the first column of a ${this.kind} must be "${first}" (found "${record[0] ?? ""}")`, line);
     }
     if (record.length < 2) throw new CsvFormatError(`a ${this.kind} needs at least one column besides "${first}"`, line);
+    if (record.length > LIMITS.seriesColumns) {
+      throw new CsvFormatError(`the header has ${record.length} columns; at most ${LIMITS.seriesColumns} are allowed`, line);
+    }
     const seen = new Set<string>();
     for (const n of record) {
       if (n === "") throw new CsvFormatError("the header has an empty column name", line);
