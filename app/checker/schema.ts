@@ -154,7 +154,7 @@ export type ClaimRecord = z.infer<typeof claimSchema>;
 const columns = z
   .record(z.string().max(LIMITS.shortText), z.array(z.number()).max(LIMITS.seriesRows))
   .refine((c) => Object.keys(c).length <= LIMITS.seriesColumns, { message: `at most ${LIMITS.seriesColumns} columns` });
-const perRun = (what: z.ZodType) =>
+const perRun = <T extends z.ZodType>(what: T) =>
   z.record(z.string().max(LIMITS.shortText), what).refine((r) => Object.keys(r).length <= LIMITS.runs, { message: `at most ${LIMITS.runs} runs` });
 
 export const checkInputSchema = z
