@@ -168,6 +168,17 @@ export function createHttpApp(options: HttpAppOptions) {
     app.use(express.static(options.staticDir, { maxAge: "1h", index: false }));
   }
 
+  // Writes only from our own pages: a missing or foreign Origin is refused before any action runs.
+  app.use((req, res, next) => {
+    if (SAFE_METHODS.has(req.method) || isExemptFromOriginCheck(pagePath(req.path))) return next();
+    const own = `${req.protocol}://${req.get("host") ?? ""}`.toLowerCase();
+    const allowed = [appOrigin, appOrigin.replace("://127.0.0.1", "://localhost"), own];
+    if (!originAllowed(req.headers.origin, allowed)) {
+      return refuse(req, res, 403, "foreign_origin", "This request did not come from a Runproof page (its Origin header is missing or another site's); nothing was changed.");
+    }
+    next();
+  });
+
   // Bodies: a size limit from the route's kind, checked on the declared length before a byte is read.
   app.use((req, res, next) => {
     if (SAFE_METHODS.has(req.method)) return next();
@@ -187,17 +198,6 @@ export function createHttpApp(options: HttpAppOptions) {
     }
     if ((length > 0 || chunked) && !acceptsRawBody(req.path) && !isFormBody(req.headers["content-type"])) {
       return refuse(req, res, 415, "unsupported_media_type", "This address accepts HTML form submissions only (application/x-www-form-urlencoded or multipart/form-data).");
-    }
-    next();
-  });
-
-  // Writes only from our own pages: a missing or foreign Origin is refused before any action runs.
-  app.use((req, res, next) => {
-    if (SAFE_METHODS.has(req.method) || isExemptFromOriginCheck(pagePath(req.path))) return next();
-    const own = `${req.protocol}://${req.get("host") ?? ""}`.toLowerCase();
-    const allowed = [appOrigin, appOrigin.replace("://127.0.0.1", "://localhost"), own];
-    if (!originAllowed(req.headers.origin, allowed)) {
-      return refuse(req, res, 403, "foreign_origin", "This request did not come from a Runproof page (its Origin header is missing or another site's); nothing was changed.");
     }
     next();
   });
