@@ -34,8 +34,11 @@ export default [
     route("reset-password", "routes/auth/reset-password.tsx"),
     route("sign-out", "routes/auth/sign-out.tsx"),
     route("dashboard", "routes/dashboard.tsx"),
-    route("account", "routes/account.tsx"),
-    route("account/tokens", "routes/account-tokens.tsx"),
+    ...prefix("account", [
+      index("routes/account/index.tsx"),
+      route("tokens", "routes/account/tokens.tsx"),
+      route("digest", "routes/account/digest.ts"),
+    ]),
     ...prefix("admin", [
       layout("routes/admin/layout.tsx", [
         index("routes/admin/index.tsx"),
@@ -44,38 +47,43 @@ export default [
       ]),
     ]),
     ...prefix("help", [route("checks", "routes/help/checks.tsx"), route("api", "routes/help/api.tsx")]),
-    // --- author workspace: venue › submission › round › runs / claims / files
-    route("venues/:venueId/submissions/new", "routes/workspace/new-submission.tsx"),
-    route("submissions/:submissionId", "routes/workspace/short-link.ts"),
-    route("submissions/:submissionId/join", "routes/workspace/join.tsx"),
-    ...prefix("venues/:venueId/submissions/:submissionId", [
-      route("rounds/:round/runs.csv", "routes/workspace/runs-csv.ts"),
-      route("rounds/:round/runs/:runId/attachments", "routes/workspace/run-attachments.ts"),
-      route("rounds/:round/flags/:flagId/answer", "routes/workspace/flag-answer.ts"),
-      route("manuscript.pdf", "routes/workspace/manuscript-pdf.ts"),
-      layout("routes/workspace/submission-layout.tsx", [
-        index("routes/workspace/submission-index.ts"),
-        route("details", "routes/workspace/details.tsx"),
-        route("rounds/:round", "routes/workspace/round-layout.tsx", [
-          index("routes/workspace/round-overview.tsx"),
-          route("runs", "routes/workspace/runs.tsx"),
-          route("runs/:runId", "routes/workspace/run.tsx"),
-          route("claims", "routes/workspace/claims.tsx"),
-          route("claims/:claimId", "routes/workspace/claim.tsx"),
-          route("files", "routes/workspace/files.tsx"),
+    // --- venue › submission › round: one tree for every role; each child asks the access policy
+    ...prefix("venues/:venueId", [
+      route("desk", "routes/venues/desk.tsx"),
+      ...prefix("submissions", [
+        route("new", "routes/venues/submissions/new.tsx"),
+        route(":submissionId", "routes/venues/submissions/layout.tsx", [
+          index("routes/venues/submissions/index.tsx"),
+          route("details", "routes/venues/submissions/details.tsx"),
+          route("rounds/:round", "routes/venues/submissions/rounds/layout.tsx", [
+            index("routes/venues/submissions/rounds/overview.tsx"),
+            route("runs", "routes/venues/submissions/rounds/runs/index.tsx"),
+            route("runs/:runId", "routes/venues/submissions/rounds/runs/run.tsx"),
+            route("runs/:runId/attachments", "routes/venues/submissions/rounds/runs/attachments.ts"),
+            route("runs.csv", "routes/venues/submissions/rounds/runs-csv.ts"),
+            route("claims", "routes/venues/submissions/rounds/claims/index.tsx"),
+            route("claims/:claimId", "routes/venues/submissions/rounds/claims/claim.tsx"),
+            route("flags/:flagId/answer", "routes/venues/submissions/rounds/flags/answer.ts"),
+            route("files", "routes/venues/submissions/rounds/files.tsx"),
+            route("manuscript.pdf", "routes/venues/submissions/rounds/manuscript-pdf.ts"),
+            route("changes", "routes/venues/submissions/rounds/changes.tsx"),
+            route("decision", "routes/venues/submissions/rounds/decision.tsx"),
+            route("letter.pdf", "routes/venues/submissions/rounds/letter-pdf.ts"),
+            route("packet.pdf", "routes/venues/submissions/rounds/packet-pdf.ts"),
+            route("review", "routes/venues/submissions/rounds/review.tsx"),
+            route("desk", "routes/venues/submissions/rounds/desk.tsx"),
+          ]),
         ]),
       ]),
+      // Addresses of earlier versions, still in mail already sent: permanent redirects.
+      route("desk/:submissionId/rounds/:round", "routes/legacy/desk-round.tsx", { id: "legacy-desk-round" }),
+      route("desk/:submissionId/rounds/:round/packet.pdf", "routes/legacy/desk-round.tsx", { id: "legacy-desk-packet" }),
+      route("submissions/:submissionId/manuscript.pdf", "routes/legacy/submission-link.tsx", { id: "legacy-manuscript" }),
     ]),
-    // --- editorial desk, invitations, reviewer workspace, decisions
-    route("venues/:venueId/desk", "routes/editorial/desk.tsx"),
-    route("account/digest", "routes/review/digest-preference.ts"),
-    route("venues/:venueId/desk/:submissionId/rounds/:round", "routes/editorial/round.tsx"),
-    route("venues/:venueId/desk/:submissionId/rounds/:round/packet.pdf", "routes/editorial/packet-pdf.ts"),
-    route("invitations/:token", "routes/review/invitation.tsx"),
-    route("review/:submissionId/rounds/:round", "routes/review/workspace.tsx"),
-    route("venues/:venueId/submissions/:submissionId/rounds/:round/decision", "routes/review/decision.tsx"),
-    route("venues/:venueId/submissions/:submissionId/rounds/:round/letter.pdf", "routes/review/letter-pdf.ts"),
-    route("venues/:venueId/submissions/:submissionId/rounds/:round/changes", "routes/review/changes.tsx"),
+    route("submissions/:submissionId", "routes/legacy/submission-link.tsx", { id: "legacy-submission" }),
+    route("submissions/:submissionId/join", "routes/submissions/join.tsx"),
+    route("review/:submissionId/rounds/:round", "routes/legacy/review-round.tsx"),
+    route("invitations/:token", "routes/invitations/invitation.tsx"),
     route("*", "routes/not-found.tsx"),
   ]),
 ] satisfies RouteConfig;

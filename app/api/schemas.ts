@@ -36,7 +36,7 @@ export const submissionSummarySchema = z
     title: z.string(),
     stage: z.string(),
     venue: z.object({ id: z.uuid(), name: z.string(), blinding: z.enum(["single", "double"]) }),
-    roles: z.array(z.enum(["author", "co-author", "reviewer", "editor"])).describe("your roles on it"),
+    roles: z.array(z.enum(["author", "co-author", "editor", "reviewer", "invited", "admin"])).describe("what you are to its rounds"),
     updatedAt: when(),
   })
   .meta({ id: "SubmissionSummary" });

@@ -1,8 +1,11 @@
-import { and, desc, eq, inArray } from "drizzle-orm";
+import { and, desc, eq, inArray, sql } from "drizzle-orm";
 import type { Database } from "~db/client";
-import { submissionMembers, submissions, venueMembers, venues } from "~db/schema";
+import { rounds, submissionMembers, submissions, venueMembers, venues } from "~db/schema";
 
 export type DashboardItem = { id: string; title: string; stage: string; venueName: string; venueId: string };
+
+/** Authors see their working title; editors and reviewers the title as last sent. */
+const sentTitle = sql<string>`coalesce((select ${rounds.sentTitle} from ${rounds} where ${rounds.submissionId} = ${submissions.id} and ${rounds.state} <> 'draft' order by ${rounds.number} desc limit 1), ${submissions.title})`;
 
 const itemColumns = {
   id: submissions.id,
@@ -14,7 +17,7 @@ const itemColumns = {
 
 async function byMembership(db: Database, userId: string, role: "author" | "co-author" | "reviewer") {
   return db
-    .select(itemColumns)
+    .select(role === "reviewer" ? { ...itemColumns, title: sentTitle } : itemColumns)
     .from(submissionMembers)
     .innerJoin(submissions, eq(submissions.id, submissionMembers.submissionId))
     .innerJoin(venues, eq(venues.id, submissions.venueId))
@@ -36,7 +39,7 @@ export async function dashboardFor(db: Database, userId: string) {
     byMembership(db, userId, "reviewer"),
     venueIds.length
       ? db
-          .select(itemColumns)
+          .select({ ...itemColumns, title: sentTitle })
           .from(submissions)
           .innerJoin(venues, eq(venues.id, submissions.venueId))
           .where(and(inArray(submissions.venueId, venueIds), inArray(submissions.stage, ["with-editor", "in-review"])))

@@ -1,4 +1,6 @@
-import { and, eq, gt, isNotNull, lte } from "drizzle-orm";
+import { absoluteUrl } from "~/mail/links.server";
+import { href } from "react-router";
+import { and, eq, gt, isNotNull, lte, sql } from "drizzle-orm";
 import type { Database } from "~db/client";
 import { invitations, reviews, rounds, submissions, user, venues } from "~db/schema";
 import { env } from "~/config/env.server";
@@ -17,7 +19,7 @@ export async function sendReminders(db: Database, now = new Date()) {
   // Links nobody used before they expired: the desk shows them as expired, not pending.
   await db.update(invitations).set({ state: "expired" }).where(and(eq(invitations.state, "pending"), lte(invitations.tokenExpiresAt, now)));
   const open = await db
-    .select({ id: reviews.id, number: reviews.number, dueAt: reviews.dueAt, email: user.email, name: user.name, roundNumber: rounds.number, submissionId: submissions.id, title: submissions.title, venueId: venues.id, venueName: venues.name })
+    .select({ id: reviews.id, number: reviews.number, dueAt: reviews.dueAt, email: user.email, name: user.name, roundNumber: rounds.number, submissionId: submissions.id, title: sql<string>`coalesce(${rounds.sentTitle}, ${submissions.title})`, venueId: venues.id, venueName: venues.name })
     .from(reviews)
     .innerJoin(user, eq(user.id, reviews.reviewerId))
     .innerJoin(rounds, eq(rounds.id, reviews.roundId))
@@ -28,7 +30,7 @@ export async function sendReminders(db: Database, now = new Date()) {
   for (const r of open) {
     const overdue = r.dueAt!.getTime() <= now.getTime();
     const due = r.dueAt!.toISOString().slice(0, 10);
-    const url = `${env.APP_URL}/review/${r.submissionId}/rounds/${r.roundNumber}`;
+    const url = absoluteUrl(href("/venues/:venueId/submissions/:submissionId/rounds/:round/review", { venueId: r.venueId, submissionId: r.submissionId, round: String(r.roundNumber) }));
     const kind = overdue ? "overdue" : "soon";
     const sent = await enqueueMail(
       db,
@@ -51,7 +53,7 @@ export async function sendReminders(db: Database, now = new Date()) {
             subject: `Overdue: Reviewer ${r.number} on ${r.title}`,
             greeting: `Hello ${editor.name},`,
             paragraphs: [`Reviewer ${r.number}'s report on round ${r.roundNumber} was due on ${due} and is not submitted yet.`],
-            action: { label: "Open the round", url: `${env.APP_URL}/venues/${r.venueId}/desk/${r.submissionId}/rounds/${r.roundNumber}` },
+            action: { label: "Open the round", url: absoluteUrl(href("/venues/:venueId/submissions/:submissionId/rounds/:round/desk", { venueId: r.venueId, submissionId: r.submissionId, round: String(r.roundNumber) })) },
           }),
           { dedupeKey: `reminder:overdue-editor:${r.id}:${editor.email}` },
         );

@@ -33,9 +33,14 @@ export async function roundChanges(db: Database, ctx: RoundContext) {
   const answers = await responsesTo(db, remarks.map((r) => r.id));
   return {
     previousNumber: prev.round.number,
-    flags: { added: groupByRuleAndRun(flags.added), resolved: groupByRuleAndRun(flags.resolved), persisting: groupByRuleAndRun(flags.persisting), counts: { added: flags.added.length, resolved: flags.resolved.length, persisting: flags.persisting.length } },
+    flags: { added: slim(flags.added), resolved: slim(flags.resolved), persisting: slim(flags.persisting), counts: { added: flags.added.length, resolved: flags.resolved.length, persisting: flags.persisting.length } },
     runs,
     removed,
     remarks: remarks.map((r) => ({ id: r.id, reviewer: r.reviewer, anchor: r.anchor, html: renderRichText(r.body), response: answers.get(r.id) ?? null })),
   };
+}
+
+/** Only what the page shows: never the stored rows (they carry who answered each flag). */
+function slim(list: Parameters<typeof groupByRuleAndRun>[0]) {
+  return groupByRuleAndRun(list).map((g) => ({ rule: g.rule, runs: g.runs.map((r) => ({ run: r.run, flags: r.flags.map((f) => ({ message: f.message, severity: f.severity })) })) }));
 }

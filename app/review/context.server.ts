@@ -1,4 +1,4 @@
-import { and, eq, inArray } from "drizzle-orm";
+import { and, eq, inArray, sql } from "drizzle-orm";
 import { data } from "react-router";
 import { contributors, rounds, submissionMembers, submissions, user, venueMembers, venues } from "~db/schema";
 import type { Db } from "~/workspace/types";
@@ -9,7 +9,7 @@ export async function roundContext(db: Db, where: { roundId: string } | { submis
   const [row] = await db
     .select({
       round: rounds,
-      submission: { id: submissions.id, title: submissions.title, stage: submissions.stage, venueId: submissions.venueId },
+      submission: { id: submissions.id, title: sql<string>`coalesce(${rounds.sentTitle}, ${submissions.title})`, stage: submissions.stage, venueId: submissions.venueId },
       venue: { id: venues.id, name: venues.name, blinding: venues.blinding },
     })
     .from(rounds)

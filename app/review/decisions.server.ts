@@ -1,3 +1,5 @@
+import { absoluteUrl } from "~/mail/links.server";
+import { href } from "react-router";
 import { and, eq, inArray } from "drizzle-orm";
 import type { Database } from "~db/client";
 import { invitations, rounds, submissions } from "~db/schema";
@@ -54,7 +56,7 @@ export async function releaseDecision(db: Database, opts: { roundId: string; dec
     const ctx = { ...before, round };
     const pdf = await letterFor(tx, ctx);
     const remarks = await releasedRemarks(tx, round);
-    const roundUrl = `${env.APP_URL}/venues/${ctx.venue.id}/submissions/${ctx.submission.id}/rounds/${round.number}/decision`;
+    const roundUrl = absoluteUrl(href("/venues/:venueId/submissions/:submissionId/rounds/:round/decision", { venueId: ctx.venue.id, submissionId: ctx.submission.id, round: String(round.number) }));
     for (const person of await submissionAuthors(tx, round.submissionId)) {
       await enqueueMail(
         tx,

@@ -13,7 +13,7 @@ export async function deskQueue(db: Db, venueId: string) {
       sentAt: rounds.sentAt,
       decision: rounds.decision,
       submissionId: submissions.id,
-      title: submissions.title,
+      title: sql<string>`coalesce(${rounds.sentTitle}, ${submissions.title})`,
       mismatch: sql<number>`(select count(*)::int from ${flags} where ${flags.roundId} = ${rounds.id} and ${flags.severity} = 'mismatch')`,
       caution: sql<number>`(select count(*)::int from ${flags} where ${flags.roundId} = ${rounds.id} and ${flags.severity} = 'caution')`,
       note: sql<number>`(select count(*)::int from ${flags} where ${flags.roundId} = ${rounds.id} and ${flags.severity} = 'note')`,

@@ -1,3 +1,5 @@
+import { absoluteUrl } from "~/mail/links.server";
+import { href } from "react-router";
 import { and, eq, gt, inArray, isNotNull, ne, sql } from "drizzle-orm";
 import type { Database } from "~db/client";
 import { flags, rounds, submissionMembers, submissions, user } from "~db/schema";
@@ -60,7 +62,7 @@ export async function runDigests(db: Database, now = new Date(), only?: DigestFr
           subject: `Your ${freq} Runproof digest (${message.period})`,
           greeting: `Hello ${person.name},`,
           paragraphs: message.bySubmission.flatMap((s) => [`${s.title}:`, ...s.lines.map((l) => `• ${l}`)]),
-          action: { label: "Open your dashboard", url: `${env.APP_URL}/dashboard` },
+          action: { label: "Open your dashboard", url: absoluteUrl(href("/dashboard")) },
           footer: "You get this digest because you are listed on these submissions; change how often on your account page.",
         }),
         { dedupeKey: `digest:${person.email}:${message.period}` },

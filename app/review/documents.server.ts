@@ -19,7 +19,9 @@ export async function packetFor(db: Db, ctx: RoundContext) {
     roundClaims(db, ctx.round.id),
     roundRunList(db as never, ctx.round.id),
     roundFlags(db, ctx.round.id),
-    db.select({ name: contributors.name, affiliation: contributors.affiliation }).from(contributors).where(eq(contributors.submissionId, ctx.submission.id)).orderBy(asc(contributors.position)),
+    // The contributor list as the round was sent; the live list only for a round never sent.
+    ctx.round.sentContributors ??
+      db.select({ name: contributors.name, affiliation: contributors.affiliation }).from(contributors).where(eq(contributors.submissionId, ctx.submission.id)).orderBy(asc(contributors.position)),
   ]);
   const authors = ctx.venue.blinding === "double" || !people.length ? null : people.map((p) => `${p.name}${p.affiliation ? ` (${p.affiliation})` : ""}`).join("; ");
   return reviewerPacketPdf({

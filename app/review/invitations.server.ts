@@ -1,3 +1,5 @@
+import { absoluteUrl } from "~/mail/links.server";
+import { href } from "react-router";
 import { and, eq, inArray, max, sql } from "drizzle-orm";
 import type { Database } from "~db/client";
 import { invitations, reviews, rounds, submissionMembers, submissions, user } from "~db/schema";
@@ -60,7 +62,7 @@ export async function inviteReviewer(db: Database, opts: { roundId: string; emai
     if (ctx.round.state === "sent") await tx.update(rounds).set({ state: "under-review" }).where(eq(rounds.id, opts.roundId));
     await tx.update(submissions).set({ stage: "in-review", updatedAt: new Date() }).where(eq(submissions.id, ctx.submission.id));
     await audit(tx, ctx.submission.id, opts.editorId, "reviewer.invited", { round: ctx.round.number, email });
-    const link = `${env.APP_URL}/invitations/${token}`;
+    const link = absoluteUrl(href("/invitations/:token", { token }));
     const due = opts.dueAt.toISOString().slice(0, 10);
     const ics = reviewDueCalendar({ uid: inv!.id, title: ctx.submission.title, dueAt: opts.dueAt, url: link, venueName: ctx.venue.name });
     const message = compose({
@@ -96,6 +98,16 @@ export async function invitationByToken(db: Db, token: string) {
 export async function respondToInvitation(db: Database, opts: { token: string; answer: "accept" | "decline"; userId: string | null }) {
   const { inv, problem } = await invitationByToken(db, opts.token);
   if (!inv || problem) throw new StateConflict(problem ?? "This invitation link is not valid.");
+  return answerInvitation(db, inv, opts);
+}
+
+/** The invited person answers from the round's review page, signed in with the invited address. */
+export async function respondAsInvitee(db: Database, opts: { invitation: typeof invitations.$inferSelect; answer: "accept" | "decline"; userId: string }) {
+  if (opts.invitation.state !== "pending") throw new StateConflict(`This invitation was already answered (it is ${opts.invitation.state}).`);
+  return answerInvitation(db, opts.invitation, opts);
+}
+
+async function answerInvitation(db: Database, inv: typeof invitations.$inferSelect, opts: { answer: "accept" | "decline"; userId: string | null }) {
   const ctx = await roundContext(db, { roundId: inv.roundId });
   if (!OPEN_STATES.includes(ctx.round.state as never)) throw new StateConflict(`Round ${ctx.round.number} was decided; this invitation is no longer needed.`);
   if (opts.answer === "accept" && !opts.userId) throw new StateConflict("Sign in with the invited address to accept.");
@@ -124,7 +136,7 @@ export async function respondToInvitation(db: Database, opts: { token: string; a
           subject: `Invitation ${opts.answer === "accept" ? "accepted" : "declined"}: ${ctx.submission.title}`,
           greeting: `Hello ${editor.name},`,
           paragraphs: [`${inv.email} ${opts.answer === "accept" ? "accepted" : "declined"} the invitation to review round ${ctx.round.number} of "${ctx.submission.title}".`],
-          action: { label: "Open the round", url: `${env.APP_URL}/venues/${ctx.venue.id}/desk/${ctx.submission.id}/rounds/${ctx.round.number}` },
+          action: { label: "Open the round", url: absoluteUrl(href("/venues/:venueId/submissions/:submissionId/rounds/:round/desk", { venueId: ctx.venue.id, submissionId: ctx.submission.id, round: String(ctx.round.number) })) },
         }),
         { dedupeKey: `invite-answer:${inv.id}:${editor.email}` },
       );

@@ -1,3 +1,5 @@
+import { absoluteUrl } from "~/mail/links.server";
+import { href } from "react-router";
 import { and, asc, eq, ne } from "drizzle-orm";
 import type { Database } from "~db/client";
 import { flags, flagVerdicts, remarks, reviews, rounds } from "~db/schema";
@@ -94,7 +96,7 @@ export async function submitReview(db: Database, review: typeof reviews.$inferSe
           subject: `Review submitted: ${ctx.submission.title}`,
           greeting: `Hello ${editor.name},`,
           paragraphs: [`Reviewer ${review.number} submitted a report on round ${ctx.round.number} of "${ctx.submission.title}" (recommendation: ${review.recommendation}).`],
-          action: { label: "Read the reports", url: `${env.APP_URL}/venues/${ctx.venue.id}/desk/${ctx.submission.id}/rounds/${ctx.round.number}` },
+          action: { label: "Read the reports", url: absoluteUrl(href("/venues/:venueId/submissions/:submissionId/rounds/:round/desk", { venueId: ctx.venue.id, submissionId: ctx.submission.id, round: String(ctx.round.number) })) },
         }),
         { dedupeKey: `review-submitted:${review.id}:${editor.email}` },
       );

@@ -15,21 +15,22 @@ import { renderRichText } from "./tiptap/render.server";
  * The frozen round as the reviewer reads it, plus their own report. Authors' names appear only
  * at single-blind venues; no other reviewer's anything is selected.
  */
-export async function reviewerView(db: Database, ctx: RoundContext, review: { id: string }) {
+export async function reviewerView(db: Database, ctx: RoundContext, review: { id: string }, opts: { showAuthors: boolean }) {
   const [claimRows, runRows, versions, flagRows, parts, people] = await Promise.all([
     roundClaims(db, ctx.round.id),
     roundRunRows(db, ctx.round.id),
     roundRunList(db, ctx.round.id),
     roundFlags(db, ctx.round.id),
     reportParts(db, review.id),
-    ctx.venue.blinding === "double"
+    !opts.showAuthors
       ? Promise.resolve([])
-      : db.select({ name: contributors.name, affiliation: contributors.affiliation }).from(contributors).where(eq(contributors.submissionId, ctx.submission.id)).orderBy(asc(contributors.position)),
+      : (ctx.round.sentContributors ??
+        db.select({ name: contributors.name, affiliation: contributors.affiliation }).from(contributors).where(eq(contributors.submissionId, ctx.submission.id)).orderBy(asc(contributors.position))),
   ]);
   const plots = await Promise.all(versions.map(async (v) => ({ label: v.label, ...(await runPlots(db, v.versionId, v.record as RunRecord)) })));
   const label = await anchorLabels(db, ctx.round.id);
   return {
-    authors: people,
+    authors: people.map((p) => ({ name: p.name, affiliation: p.affiliation })),
     claims: claimRows.map((c) => {
       const rec = c.record as { title?: string; runs?: { label: string; part: string }[]; stated?: { quantity: string; value: string; run?: string }[] };
       return { id: c.id, figure: c.figure, statement: c.statement, title: rec.title ?? "", runs: rec.runs ?? [], stated: rec.stated ?? [] };

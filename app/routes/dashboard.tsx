@@ -1,16 +1,23 @@
-import { Link } from "react-router";
-import { requireUser } from "~/auth/guards.server";
+import { href, Link } from "react-router";
+import { requireUser } from "~/access/session.server";
 import { openVenues } from "~/workspace/submissions.server";
 import { dashboardFor, type DashboardItem } from "~/dashboard/queries.server";
-import { myDecisions, myReviews } from "~/review/dashboard.server";
+import { myDecisions, myInvitations, myReviews } from "~/review/dashboard.server";
+import { decisionLabel } from "~/review/states";
 import type { Route } from "./+types/dashboard";
 
 export const meta: Route.MetaFunction = () => [{ title: "What needs me · Runproof" }];
 
 export async function loader(args: Route.LoaderArgs) {
   const { user, db } = await requireUser(args);
-  const [lists, reviews, venuesOpen, decisions] = await Promise.all([dashboardFor(db, user.id), myReviews(db, user.id), openVenues(db), myDecisions(db, user.id)]);
-  return { name: user.name, admin: user.role === "admin", ...lists, reviews, venuesOpen, decisions };
+  const [lists, reviews, venuesOpen, decisions, invited] = await Promise.all([
+    dashboardFor(db, user.id),
+    myReviews(db, user.id),
+    openVenues(db),
+    myDecisions(db, user.id),
+    myInvitations(db, user),
+  ]);
+  return { name: user.name, admin: user.role === "admin", ...lists, reviews, venuesOpen, decisions, invited };
 }
 
 const stageLabel: Record<string, string> = {
@@ -33,7 +40,7 @@ function Section({ title, items, empty, testId }: { title: string; items: Dashbo
         <ul className="mt-3 divide-y divide-rule">
           {items.map((s) => (
             <li key={s.id} className="py-2">
-              <Link to={`/submissions/${s.id}`} className="font-semibold">
+              <Link to={href("/venues/:venueId/submissions/:submissionId", { venueId: s.venueId, submissionId: s.id })} className="font-semibold">
                 {s.title}
               </Link>
               <span className="ml-2 text-caption text-basalt-soft">
@@ -83,7 +90,24 @@ export default function Dashboard({ loaderData: d }: Route.ComponentProps) {
             <ul className="mt-2">
               {d.editorVenues.map((v) => (
                 <li key={v.id}>
-                  <a className="underline" href={`/venues/${v.id}/desk`}>{v.name}: rounds, reviewers, decisions</a>
+                  <a className="underline" href={href("/venues/:venueId/desk", { venueId: v.id })}>{v.name}: rounds, reviewers, decisions</a>
+                </li>
+              ))}
+            </ul>
+          </section>
+        ) : null}
+        {d.invited.length > 0 ? (
+          <section className="card" data-testid="my-invitations">
+            <h2 className="text-lead">Invitations to review</h2>
+            <ul className="mt-2 divide-y divide-rule">
+              {d.invited.map((i) => (
+                <li key={i.id} className="py-1">
+                  <Link className="underline" to={i.href}>
+                    {i.title}, round {i.round}
+                  </Link>
+                  <span className="ml-2 text-caption text-basalt-soft">
+                    {i.venueName} · report due {i.dueAt} · accept or decline on its page
+                  </span>
                 </li>
               ))}
             </ul>
@@ -108,7 +132,7 @@ export default function Dashboard({ loaderData: d }: Route.ComponentProps) {
             <ul className="mt-2 divide-y divide-rule">
               {d.decisions.map((r) => (
                 <li key={r.roundId} className="py-1">
-                  <a className="underline" href={r.href}>{r.title}, round {r.round}: {r.decision}</a>
+                  <a className="underline" href={r.href}>{r.title}, round {r.round}: {decisionLabel(r.decision)}</a>
                   <span className="ml-2 text-caption text-basalt-soft">released {r.releasedAt}</span>
                 </li>
               ))}
@@ -121,7 +145,7 @@ export default function Dashboard({ loaderData: d }: Route.ComponentProps) {
             <ul className="mt-2">
               {d.venuesOpen.map((v) => (
                 <li key={v.id}>
-                  <Link to={`/venues/${v.id}/submissions/new`}>Start a submission to {v.name}</Link>
+                  <Link to={href("/venues/:venueId/submissions/new", { venueId: v.id })}>Start a submission to {v.name}</Link>
                 </li>
               ))}
             </ul>
@@ -131,7 +155,7 @@ export default function Dashboard({ loaderData: d }: Route.ComponentProps) {
           <section className="card" data-testid="role-admin">
             <h2 className="text-lead">As instance administrator</h2>
             <p className="mt-2 text-caption">
-              Manage venues, editors and accounts under <a href="/admin">Instance</a>.
+              Manage venues, editors and accounts under <Link to={href("/admin")}>Instance</Link>.
             </p>
           </section>
         ) : null}

@@ -1,5 +1,5 @@
 import { Outlet, useRouteLoaderData } from "react-router";
-import { getSessionUser } from "~/auth/guards.server";
+import { sessionUser } from "~/access/session.server";
 import { roleLabels, roleSummary } from "~/auth/roles.server";
 import { dbContext } from "~/db.server";
 import { ErrorView } from "~/components/error-view";
@@ -8,7 +8,7 @@ import type { Route } from "./+types/shell";
 
 // The header only: who is signed in and what they hold. Child routes guard themselves.
 export async function loader({ request, context }: Route.LoaderArgs) {
-  const user = await getSessionUser(request);
+  const user = await sessionUser({ request, context });
   if (!user) return { viewer: null };
   const summary = await roleSummary(context.get(dbContext), user);
   return { viewer: { name: user.name, email: user.email, roles: roleLabels(summary), admin: summary.admin } };

@@ -14,3 +14,9 @@ export function serviceError(e: unknown, extra: Record<string, unknown> = {}) {
   if (e instanceof TooManyRequests) return data({ ...extra, error: { message: e.message, issues: [] } }, { status: 429 });
   throw e;
 }
+
+/** The same mapping for the review pages' fetchers, which read `{ ok, error, issues }`. */
+export function asActionError(e: unknown) {
+  const reply = serviceError(e);
+  return data({ ok: false as const, error: reply.data.error.message, issues: reply.data.error.issues }, reply.init ?? undefined);
+}

@@ -1,3 +1,5 @@
+import { absoluteUrl } from "~/mail/links.server";
+import { href } from "react-router";
 import { createHash, randomBytes } from "node:crypto";
 import { and, eq, isNotNull, isNull, max } from "drizzle-orm";
 import { contributors, submissionMembers, submissions, user } from "~db/schema";
@@ -79,7 +81,7 @@ export async function inviteContributor(
           `${inviter!.name} listed you as a co-author of "${sub!.title}" on Runproof.`,
           `Open the link to attach your account to the submission. If you have no account yet, create one with this address (${opts.email}) first, then open the link again.`,
         ],
-        action: { label: "Join the submission", url: `${env.APP_URL}/submissions/${opts.submissionId}/join?token=${token}` },
+        action: { label: "Join the submission", url: `${absoluteUrl(href("/submissions/:submissionId/join", { submissionId: opts.submissionId }))}?token=${token}` },
       }),
     );
   });

@@ -1,6 +1,8 @@
-import { and, eq, inArray, isNull, ne } from "drizzle-orm";
+import { absoluteUrl } from "~/mail/links.server";
+import { href } from "react-router";
+import { and, asc, eq, inArray, isNull, ne } from "drizzle-orm";
 import type { Database } from "~db/client";
-import { flags, rounds, submissionMembers, submissions, user, venueMembers, venues } from "~db/schema";
+import { contributors, flags, rounds, submissionMembers, submissions, user, venueMembers, venues } from "~db/schema";
 import { env } from "~/config/env.server";
 import { compose } from "~/mail/compose";
 import { enqueueMail } from "~/mail/outbox.server";
@@ -34,6 +36,7 @@ export async function sendRound(db: Database, opts: { roundId: string; userId: s
       .where(and(eq(rounds.id, opts.roundId), eq(rounds.state, "draft"), eq(rounds.version, opts.expectedVersion)))
       .returning();
     if (!round) throw new StateConflict("This round was already sent or changed by someone else: reload the page.");
+    await freezeManuscript(tx, round.id, round.submissionId);
     const [sub] = await tx
       .update(submissions)
       .set({ stage: "with-editor", updatedAt: new Date() })
@@ -57,7 +60,7 @@ export async function sendRound(db: Database, opts: { roundId: string; userId: s
             `The authors sent round ${round.number} of "${sub!.title}" to ${editor.venueName}.`,
             "The checker's flags and the authors' answers to them are on the round's page.",
           ],
-          action: { label: "Open the editor's desk", url: `${env.APP_URL}/venues/${sub!.venueId}/desk` },
+          action: { label: "Open the editor's desk", url: absoluteUrl(href("/venues/:venueId/submissions/:submissionId/rounds/:round/desk", { venueId: sub!.venueId, submissionId: sub!.id, round: String(round.number) })) },
         }),
         { dedupeKey: `round-sent:${round.id}:${editor.email}` },
       );
@@ -79,11 +82,37 @@ export async function sendRound(db: Database, opts: { roundId: string; userId: s
             `Round ${round.number} of "${sub!.title}" was sent to the editor; its runs and claims are now frozen.`,
             "You will hear when the editor decides; changes go into the next round.",
           ],
-          action: { label: "Open the round", url: `${env.APP_URL}/venues/${sub!.venueId}/submissions/${sub!.id}/rounds/${round.number}` },
+          action: { label: "Open the round", url: absoluteUrl(href("/venues/:venueId/submissions/:submissionId/rounds/:round", { venueId: sub!.venueId, submissionId: sub!.id, round: String(round.number) })) },
         }),
         { dedupeKey: `round-sent-author:${round.id}:${a.email}` },
       );
     }
     return round;
   });
+}
+
+type Tx = Parameters<Parameters<Database["transaction"]>[0]>[0];
+
+/** Copies the manuscript as it is now into the round: what everyone but the authors will read. */
+async function freezeManuscript(tx: Tx, roundId: string, submissionId: string) {
+  const [sub] = await tx
+    .select({ title: submissions.title, abstract: submissions.abstract, keywords: submissions.keywords, file: submissions.manuscriptFileId })
+    .from(submissions)
+    .where(eq(submissions.id, submissionId));
+  const people = await tx
+    .select({
+      position: contributors.position,
+      name: contributors.name,
+      affiliation: contributors.affiliation,
+      orcid: contributors.orcid,
+      creditRoles: contributors.creditRoles,
+      corresponding: contributors.corresponding,
+    })
+    .from(contributors)
+    .where(eq(contributors.submissionId, submissionId))
+    .orderBy(asc(contributors.position));
+  await tx
+    .update(rounds)
+    .set({ sentTitle: sub!.title, sentAbstract: sub!.abstract, sentKeywords: sub!.keywords, sentManuscriptFileId: sub!.file, sentContributors: people })
+    .where(eq(rounds.id, roundId));
 }

@@ -2,6 +2,9 @@ import { integer, jsonb, pgEnum, pgTable, text, timestamp, uniqueIndex, uuid } f
 import { user } from "./auth";
 import { submissions } from "./submissions";
 
+/** One listed person as the round was sent (no e-mail: it never leaves the authors' pages). */
+export type SentContributor = { position: number; name: string; affiliation: string; orcid: string | null; creditRoles: string[]; corresponding: boolean };
+
 export const roundStateEnum = pgEnum("round_state", ["draft", "sent", "under-review", "reviews-in", "decided"]);
 export const decisionEnum = pgEnum("decision", ["accept", "minor-revision", "major-revision", "reject"]);
 
@@ -30,6 +33,16 @@ export const rounds = pgTable(
     releasedAt: timestamp("released_at", { withTimezone: true }),
     /** When the flags were last recomputed, and a digest of the inputs they came from. */
     checkedAt: timestamp("checked_at", { withTimezone: true }),
+    /**
+     * The manuscript as sent in this round: title, abstract, keywords, file and contributor list,
+     * copied when the round is sent. Everyone but the authors reads these, so a draft's edits
+     * never reach the editor or reviewers before the next round is sent.
+     */
+    sentTitle: text("sent_title"),
+    sentAbstract: text("sent_abstract"),
+    sentKeywords: text("sent_keywords").array(),
+    sentManuscriptFileId: uuid("sent_manuscript_file_id"),
+    sentContributors: jsonb("sent_contributors").$type<SentContributor[]>(),
     createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),
   },
   (t) => [uniqueIndex("rounds_submission_number_uq").on(t.submissionId, t.number)],

@@ -10,6 +10,7 @@ import { reviewerView } from "~/review/workspace.server";
 import { makeSentRound } from "../../e2e/support/make-sent-round";
 import { testDatabase } from "../support/test-db";
 import { dropQueuedMail } from "./outbox-cleanup";
+import { can } from "~/access/policy";
 
 const { db, sql } = testDatabase();
 const title = `Blinding towards reviewers ${Date.now()}`;
@@ -30,7 +31,7 @@ describe("blinding towards reviewers", () => {
     const fx = await makeSentRound(db, title);
     const single = await roundContext(db, { roundId: fx.roundId });
     expect(single.venue.blinding).toBe("single");
-    const open = await reviewerView(db, single, { id: randomUUID() });
+    const open = await reviewerView(db, single, { id: randomUUID() }, { showAuthors: can("reviewer", "sent", "read-author-identities", single.venue.blinding) });
     expect(open.authors.map((a) => a.name)).toContain(author.name);
     expect(await packetText(single)).toContain(author.name);
 
@@ -38,7 +39,7 @@ describe("blinding towards reviewers", () => {
     const [venue] = await db.insert(venues).values({ slug: `double-${Date.now()}`, name: "Double-blind test venue", blinding: "double" }).returning();
     await db.update(submissions).set({ venueId: venue!.id }).where(eq(submissions.id, fx.submissionId));
     const double = await roundContext(db, { roundId: fx.roundId });
-    const hidden = await reviewerView(db, double, { id: randomUUID() });
+    const hidden = await reviewerView(db, double, { id: randomUUID() }, { showAuthors: can("reviewer", "sent", "read-author-identities", double.venue.blinding) });
     expect(hidden.authors).toEqual([]);
     expect(JSON.stringify(hidden)).not.toContain(author.name);
     expect(JSON.stringify(hidden)).not.toContain(author.affiliation);

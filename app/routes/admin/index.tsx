@@ -1,6 +1,6 @@
 import { count } from "drizzle-orm";
 import { outbox, submissions, user, venues } from "~db/schema";
-import { requireAdmin } from "~/auth/guards.server";
+import { requireAdmin } from "~/access/session.server";
 import type { Route } from "./+types/index";
 
 export async function loader(args: Route.LoaderArgs) {

@@ -1,5 +1,5 @@
 import { NavLink, Outlet } from "react-router";
-import { requireAdmin } from "~/auth/guards.server";
+import { requireAdmin } from "~/access/session.server";
 import type { Route } from "./+types/layout";
 
 // This guard only decides whether the tabs render; each child loader and action checks again.

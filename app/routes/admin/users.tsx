@@ -3,7 +3,7 @@ import { asc, eq } from "drizzle-orm";
 import { data, useFetcher } from "react-router";
 import { user } from "~db/schema";
 import { setRoleSchema } from "~/admin/forms";
-import { requireAdmin } from "~/auth/guards.server";
+import { requireAdmin } from "~/access/session.server";
 import type { Route } from "./+types/users";
 
 export async function loader(args: Route.LoaderArgs) {

@@ -5,7 +5,7 @@ import { data, Form } from "react-router";
 import { venueMembers, venues } from "~db/schema";
 import { addEditorSchema, createVenueSchema } from "~/admin/forms";
 import { createVenue, findUserIdByEmail, listVenues } from "~/admin/venues.server";
-import { requireAdmin } from "~/auth/guards.server";
+import { requireAdmin } from "~/access/session.server";
 import { FormErrors, TextField } from "~/components/field";
 import type { Route } from "./+types/venues";
 

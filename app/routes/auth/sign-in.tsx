@@ -4,14 +4,14 @@ import { data, Form, Link, redirect, useSearchParams } from "react-router";
 import { auth } from "~/auth/auth.server";
 import { apiErrorResponse, authErrorOf, forwardCookies } from "~/auth/cookies.server";
 import { safeNext, signInSchema } from "~/auth/forms";
-import { getSessionUser } from "~/auth/guards.server";
+import { sessionUser } from "~/access/session.server";
 import { FormErrors, TextField } from "~/components/field";
 import type { Route } from "./+types/sign-in";
 
 export const meta: Route.MetaFunction = () => [{ title: "Sign in · Runproof" }];
 
-export async function loader({ request }: Route.LoaderArgs) {
-  if (await getSessionUser(request)) throw redirect(safeNext(new URL(request.url).searchParams.get("next")));
+export async function loader({ request, context }: Route.LoaderArgs) {
+  if (await sessionUser({ request, context })) throw redirect(safeNext(new URL(request.url).searchParams.get("next")));
   return null;
 }
 

@@ -1,7 +1,7 @@
 import { and, eq } from "drizzle-orm";
 import { attachments, roundRuns, storedFiles } from "~db/schema";
-import { idParam, roundForCaller } from "~/api/access.server";
-import { requireApiCaller } from "~/api/auth.server";
+import { idParam, roundForApi } from "~/access/api-guards.server";
+import { requireApiCaller } from "~/api/caller.server";
 import { apiError, apiHandle } from "~/api/errors.server";
 import { methodNotAllowed, parseQuery } from "~/api/input.server";
 import { attachmentQuerySchema } from "~/api/schemas";
@@ -20,7 +20,7 @@ export function action({ request, context, params }: Route.ActionArgs) {
   return apiHandle(async () => {
     const db = context.get(dbContext);
     const caller = await requireApiCaller(request, db, { scope: "write:runs" });
-    const { round } = await roundForCaller(db, caller.userId, params.submissionId, params.round, "write");
+    const { round } = await roundForApi(db, caller.userId, params, "write-runs");
     const runId = idParam(params.runId);
     const query = parseQuery(request, attachmentQuerySchema);
     const limitBytes = env.UPLOAD_LIMIT_MB * 1024 * 1024;

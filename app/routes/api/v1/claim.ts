@@ -1,8 +1,8 @@
 import { and, eq } from "drizzle-orm";
 import type { Database } from "~db/client";
 import { claims } from "~db/schema";
-import { idParam, roundForCaller } from "~/api/access.server";
-import { requireApiCaller } from "~/api/auth.server";
+import { idParam, roundForApi } from "~/access/api-guards.server";
+import { requireApiCaller } from "~/api/caller.server";
 import { apiError, apiHandle } from "~/api/errors.server";
 import { methodNotAllowed, parseBody } from "~/api/input.server";
 import { claimUpdateSchema } from "~/api/schemas";
@@ -23,7 +23,7 @@ export function loader({ request, context, params }: Route.LoaderArgs) {
   return apiHandle(async () => {
     const db = context.get(dbContext);
     const caller = await requireApiCaller(request, db, { scope: "read" });
-    const { round } = await roundForCaller(db, caller.userId, params.submissionId, params.round, "read");
+    const { round } = await roundForApi(db, caller.userId, params, "read-claims");
     const row = await claimOfRound(db, round.id, params.claimId);
     return Response.json(claimOut(row), { headers: { etag: `"${row.version}"` } });
   });
@@ -35,7 +35,7 @@ export function action({ request, context, params }: Route.ActionArgs) {
   return apiHandle(async () => {
     const db = context.get(dbContext);
     const caller = await requireApiCaller(request, db, { scope: "write:runs" });
-    const { round } = await roundForCaller(db, caller.userId, params.submissionId, params.round, "write");
+    const { round } = await roundForApi(db, caller.userId, params, "write-claims");
     await claimOfRound(db, round.id, params.claimId);
     const body = await parseBody(request, claimUpdateSchema, "The claim update is not valid.");
     const row = await updateClaim(db, round.id, params.claimId!, body.version, body);

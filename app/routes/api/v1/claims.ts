@@ -1,5 +1,5 @@
-import { roundForCaller } from "~/api/access.server";
-import { requireApiCaller } from "~/api/auth.server";
+import { roundForApi } from "~/access/api-guards.server";
+import { requireApiCaller } from "~/api/caller.server";
 import { apiHandle } from "~/api/errors.server";
 import { claimOut } from "~/api/views.server";
 import { methodNotAllowed, parseBody } from "~/api/input.server";
@@ -14,7 +14,7 @@ export function loader({ request, context, params }: Route.LoaderArgs) {
   return apiHandle(async () => {
     const db = context.get(dbContext);
     const caller = await requireApiCaller(request, db, { scope: "read" });
-    const { round } = await roundForCaller(db, caller.userId, params.submissionId, params.round, "read");
+    const { round } = await roundForApi(db, caller.userId, params, "read-claims");
     return Response.json({ items: (await roundClaims(db, round.id)).map(claimOut) });
   });
 }
@@ -25,7 +25,7 @@ export function action({ request, context, params }: Route.ActionArgs) {
   return apiHandle(async () => {
     const db = context.get(dbContext);
     const caller = await requireApiCaller(request, db, { scope: "write:runs" });
-    const { round } = await roundForCaller(db, caller.userId, params.submissionId, params.round, "write");
+    const { round } = await roundForApi(db, caller.userId, params, "write-claims");
     const body = await parseBody(request, claimWriteSchema, "The claim is not valid.");
     const row = await createClaim(db, round.id, body);
     await recheckRound(db, round.id);

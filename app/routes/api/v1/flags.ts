@@ -1,7 +1,7 @@
 import { and, asc, eq, type SQL } from "drizzle-orm";
 import { flags } from "~db/schema";
-import { roundForCaller } from "~/api/access.server";
-import { requireApiCaller } from "~/api/auth.server";
+import { roundForApi } from "~/access/api-guards.server";
+import { requireApiCaller } from "~/api/caller.server";
 import { apiHandle } from "~/api/errors.server";
 import { methodNotAllowed, parseQuery } from "~/api/input.server";
 import { flagsQuerySchema } from "~/api/schemas";
@@ -15,7 +15,7 @@ export function loader({ request, context, params }: Route.LoaderArgs) {
     const db = context.get(dbContext);
     const caller = await requireApiCaller(request, db, { scope: "read" });
     const query = parseQuery(request, flagsQuerySchema);
-    const { round } = await roundForCaller(db, caller.userId, params.submissionId, params.round, "read");
+    const { round } = await roundForApi(db, caller.userId, params, "read-flags");
     const where: SQL[] = [eq(flags.roundId, round.id)];
     if (query.severity) where.push(eq(flags.severity, query.severity));
     if (query.rule) where.push(eq(flags.rule, query.rule));

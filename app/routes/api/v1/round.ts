@@ -1,7 +1,7 @@
 import { count, eq } from "drizzle-orm";
 import { claims, roundRuns } from "~db/schema";
-import { roundForCaller } from "~/api/access.server";
-import { requireApiCaller } from "~/api/auth.server";
+import { roundForApi } from "~/access/api-guards.server";
+import { requireApiCaller } from "~/api/caller.server";
 import { apiHandle } from "~/api/errors.server";
 import { methodNotAllowed } from "~/api/input.server";
 import { flagCountsByRun, iso } from "~/api/views.server";
@@ -13,7 +13,7 @@ export function loader({ request, context, params }: Route.LoaderArgs) {
   return apiHandle(async () => {
     const db = context.get(dbContext);
     const caller = await requireApiCaller(request, db, { scope: "read" });
-    const { round } = await roundForCaller(db, caller.userId, params.submissionId, params.round, "read");
+    const { round } = await roundForApi(db, caller.userId, params, "open-round");
     const [[runs], [claimCount], counts] = await Promise.all([
       db.select({ n: count() }).from(roundRuns).where(eq(roundRuns.roundId, round.id)),
       db.select({ n: count() }).from(claims).where(eq(claims.roundId, round.id)),

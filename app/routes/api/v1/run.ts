@@ -1,8 +1,8 @@
 import { and, eq } from "drizzle-orm";
 import * as z from "zod";
 import { roundRuns } from "~db/schema";
-import { idParam, roundForCaller } from "~/api/access.server";
-import { requireApiCaller } from "~/api/auth.server";
+import { idParam, roundForApi } from "~/access/api-guards.server";
+import { requireApiCaller } from "~/api/caller.server";
 import { apiError, apiHandle } from "~/api/errors.server";
 import { ifMatchVersion, methodNotAllowed, parseBody } from "~/api/input.server";
 import { runDetail } from "~/api/run-detail.server";
@@ -19,7 +19,7 @@ export function loader({ request, context, params }: Route.LoaderArgs) {
   return apiHandle(async () => {
     const db = context.get(dbContext);
     const caller = await requireApiCaller(request, db, { scope: "read" });
-    const { round } = await roundForCaller(db, caller.userId, params.submissionId, params.round, "read");
+    const { round } = await roundForApi(db, caller.userId, params, "read-runs");
     const body = await runDetail(db, round.id, params.runId);
     return Response.json(body, { headers: { etag: `"${body.version}"` } });
   });
@@ -34,7 +34,7 @@ export function action({ request, context, params }: Route.ActionArgs) {
   return apiHandle(async () => {
     const db = context.get(dbContext);
     const caller = await requireApiCaller(request, db, { scope: "write:runs" });
-    const { round } = await roundForCaller(db, caller.userId, params.submissionId, params.round, "write");
+    const { round } = await roundForApi(db, caller.userId, params, "write-runs");
     const runId = idParam(params.runId);
     // The run must be one of this round's: a run id from elsewhere is not found here.
     const [pointer] = await db

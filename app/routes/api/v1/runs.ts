@@ -1,5 +1,5 @@
-import { roundForCaller } from "~/api/access.server";
-import { requireApiCaller } from "~/api/auth.server";
+import { roundForApi } from "~/access/api-guards.server";
+import { requireApiCaller } from "~/api/caller.server";
 import { apiHandle } from "~/api/errors.server";
 import { methodNotAllowed, parseBody, parseQuery } from "~/api/input.server";
 import { runsQuerySchema } from "~/api/schemas";
@@ -21,7 +21,7 @@ export function loader({ request, context, params }: Route.LoaderArgs) {
     const db = context.get(dbContext);
     const caller = await requireApiCaller(request, db, { scope: "read" });
     const query = parseQuery(request, runsQuerySchema);
-    const { round } = await roundForCaller(db, caller.userId, params.submissionId, params.round, "read");
+    const { round } = await roundForApi(db, caller.userId, params, "read-runs");
     return Response.json(await runPage(db, round.id, query));
   });
 }
@@ -32,7 +32,7 @@ export function action({ request, context, params }: Route.ActionArgs) {
   return apiHandle(async () => {
     const db = context.get(dbContext);
     const caller = await requireApiCaller(request, db, { scope: "write:runs" });
-    const { round, submission } = await roundForCaller(db, caller.userId, params.submissionId, params.round, "write");
+    const { round, submission } = await roundForApi(db, caller.userId, params, "write-runs");
     const record = await parseBody(request, runSchema, "The run record does not follow runproof.run/1.");
     const created = await db.transaction((tx) =>
       createRun(tx, { submissionId: submission.id, roundId: round.id, record, origin: "api", userId: caller.userId }),

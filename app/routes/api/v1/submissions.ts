@@ -1,63 +1,43 @@
-import { and, eq, inArray, ne, or } from "drizzle-orm";
-import { rounds, submissionMembers, submissions, venueMembers, venues } from "~db/schema";
-import { requireApiCaller } from "~/api/auth.server";
+import { desc, eq, inArray, or } from "drizzle-orm";
+import { submissionMembers, submissions, venueMembers } from "~db/schema";
+import { submissionForApi } from "~/access/api-guards.server";
+import { shownSubmission } from "~/access/relation.server";
+import { requireApiCaller } from "~/api/caller.server";
 import { apiHandle } from "~/api/errors.server";
 import { methodNotAllowed } from "~/api/input.server";
 import { dbContext } from "~/db.server";
 import type { Route } from "./+types/submissions";
 
-/** GET /api/v1/submissions: the submissions you hold a role on (author, co-author, reviewer, editor). */
+/** The list answers at most this many submissions, most recently changed first. */
+const LIST_LIMIT = 100;
+
+/** GET /api/v1/submissions: the submissions with a round you may open, as you may see them. */
 export function loader({ request, context }: Route.LoaderArgs) {
   return apiHandle(async () => {
     const db = context.get(dbContext);
     const caller = await requireApiCaller(request, db, { scope: "read" });
-    const [memberRows, editorRows] = await Promise.all([
-      db.select({ id: submissionMembers.submissionId, role: submissionMembers.role }).from(submissionMembers).where(eq(submissionMembers.userId, caller.userId)),
-      db.select({ venueId: venueMembers.venueId }).from(venueMembers).where(eq(venueMembers.userId, caller.userId)),
-    ]);
-    const memberIds = [...new Set(memberRows.map((m) => m.id))];
-    const venueIds = editorRows.map((e) => e.venueId);
-    if (memberIds.length === 0 && venueIds.length === 0) return Response.json({ items: [] });
-    const conditions = [];
-    if (memberIds.length) conditions.push(inArray(submissions.id, memberIds));
-    if (venueIds.length) conditions.push(inArray(submissions.venueId, venueIds));
-    const rows = await db
-      .select({
-        id: submissions.id,
-        title: submissions.title,
-        stage: submissions.stage,
-        updatedAt: submissions.updatedAt,
-        venueId: venues.id,
-        venueName: venues.name,
-        blinding: venues.blinding,
-      })
+    const memberOf = db.select({ id: submissionMembers.submissionId }).from(submissionMembers).where(eq(submissionMembers.userId, caller.userId));
+    const editorOf = db.select({ id: venueMembers.venueId }).from(venueMembers).where(eq(venueMembers.userId, caller.userId));
+    const candidates = await db
+      .select({ id: submissions.id })
       .from(submissions)
-      .innerJoin(venues, eq(venues.id, submissions.venueId))
-      .where(or(...conditions))
-      .orderBy(submissions.updatedAt);
-    // Editors see a submission once a round of it was sent (the same rule as the round routes).
-    const editable = rows.filter((s) => venueIds.includes(s.venueId)).map((s) => s.id);
-    const sentRows = editable.length
-      ? await db
-          .selectDistinct({ id: rounds.submissionId })
-          .from(rounds)
-          .where(and(inArray(rounds.submissionId, editable), ne(rounds.state, "draft")))
-      : [];
-    const sent = new Set(sentRows.map((r) => r.id));
-    const items = rows
-      .map((s) => {
-        const roles: string[] = memberRows.filter((m) => m.id === s.id).map((m) => m.role);
-        if (sent.has(s.id)) roles.push("editor");
+      .where(or(inArray(submissions.id, memberOf), inArray(submissions.venueId, editorOf)))
+      .orderBy(desc(submissions.updatedAt))
+      .limit(LIST_LIMIT);
+    const found = await Promise.all(candidates.map((c) => submissionForApi(db, caller.userId, c.id).catch(() => null)));
+    const items = found
+      .filter((f) => f !== null)
+      .map((f) => {
+        const shown = shownSubmission(f);
         return {
-          id: s.id,
-          title: s.title,
-          stage: s.stage,
-          venue: { id: s.venueId, name: s.venueName, blinding: s.blinding },
-          roles,
-          updatedAt: s.updatedAt.toISOString(),
+          id: f.submission.id,
+          title: shown.title,
+          stage: f.submission.stage,
+          venue: f.venue,
+          roles: [...new Set(f.rounds.map((r) => r.relation))],
+          updatedAt: shown.updatedAt.toISOString(),
         };
-      })
-      .filter((s) => s.roles.length > 0);
+      });
     return Response.json({ items });
   });
 }

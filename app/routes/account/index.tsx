@@ -1,0 +1,67 @@
+import { getFormProps, useForm } from "@conform-to/react";
+import { getZodConstraint, parseWithZod } from "@conform-to/zod/v4";
+import { eq } from "drizzle-orm";
+import { data, Form, Link } from "react-router";
+import { user as userTable } from "~db/schema";
+import { profileSchema } from "~/auth/forms";
+import { requireUser } from "~/access/session.server";
+import { TextField } from "~/components/field";
+import { DigestForm } from "~/components/review/digest-form";
+import type { Route } from "./+types/index";
+
+export const meta: Route.MetaFunction = () => [{ title: "Your account · Runproof" }];
+
+export async function loader(args: Route.LoaderArgs) {
+  const { user, db } = await requireUser(args);
+  const [profile] = await db
+    .select({ name: userTable.name, email: userTable.email, affiliation: userTable.affiliation, orcid: userTable.orcid, digest: userTable.digest })
+    .from(userTable)
+    .where(eq(userTable.id, user.id));
+  return { profile: profile! };
+}
+
+export async function action(args: Route.ActionArgs) {
+  const { user, db } = await requireUser(args);
+  const submission = parseWithZod(await args.request.formData(), { schema: profileSchema });
+  if (submission.status !== "success") return data({ result: submission.reply(), saved: false }, { status: 400 });
+  const { name, affiliation, orcid } = submission.value;
+  await db
+    .update(userTable)
+    .set({ name, affiliation: affiliation || null, orcid: orcid ?? null, updatedAt: new Date() })
+    .where(eq(userTable.id, user.id));
+  return { result: submission.reply(), saved: true };
+}
+
+export default function Account({ loaderData, actionData }: Route.ComponentProps) {
+  const { profile } = loaderData;
+  const [form, fields] = useForm({
+    lastResult: actionData?.result,
+    defaultValue: { name: profile.name, affiliation: profile.affiliation ?? "", orcid: profile.orcid ?? "" },
+    constraint: getZodConstraint(profileSchema),
+    onValidate: ({ formData }) => parseWithZod(formData, { schema: profileSchema }),
+    shouldRevalidate: "onBlur",
+  });
+  return (
+    <main className="mx-auto max-w-xl p-gutter">
+      <h1 className="text-title">Your account</h1>
+      <p className="mt-2 text-basalt-soft">Signed in as {profile.email}.</p>
+      <p className="mt-2">
+        <Link to="/account/tokens" className="underline">API tokens</Link> for scripts that push run records.
+      </p>
+      {actionData?.saved ? (
+        <p className="mt-3 rounded bg-lichen-wash p-3" role="status">
+          Saved.
+        </p>
+      ) : null}
+      <Form method="post" {...getFormProps(form)} className="mt-6 flex flex-col gap-4">
+        <TextField meta={fields.name} label="Name" autoComplete="name" />
+        <TextField meta={fields.affiliation} label="Affiliation" autoComplete="organization" hint="Institute and city, as it should appear on a submission." />
+        <TextField meta={fields.orcid} label="ORCID iD" hint="16 characters such as 0000-0002-1825-0097; the last one is a check digit." />
+        <button type="submit" className="btn self-start">
+          Save
+        </button>
+      </Form>
+      <DigestForm current={profile.digest} />
+    </main>
+  );
+}

@@ -1,0 +1,89 @@
+import { and, eq } from "drizzle-orm";
+import { data, Form, href, redirect } from "react-router";
+import { claims } from "~db/schema";
+import { ClaimEditor, claimDraftOf } from "~/components/workspace/claim-editor";
+import { FlagsPanel } from "~/components/workspace/flags-panel";
+import { serviceError } from "~/workspace/action-errors.server";
+import { requireRound } from "~/access/page-guards.server";
+import { roundFlags } from "~/workspace/flags-query.server";
+import { changeClaim, parseJsonText, removeClaim } from "~/workspace/run-edits.server";
+import { roundRunList } from "~/workspace/runs.server";
+import type { Route } from "./+types/claim";
+
+export const meta: Route.MetaFunction = () => [{ title: "Claim · Runproof" }];
+
+async function claimOfRound(db: Parameters<typeof roundRunList>[0], roundId: string, claimId: string) {
+  if (!/^[0-9a-f-]{36}$/i.test(claimId)) throw data("Not found", { status: 404 });
+  const [row] = await db.select().from(claims).where(and(eq(claims.id, claimId), eq(claims.roundId, roundId)));
+  if (!row) throw data("Not found", { status: 404 });
+  return row;
+}
+
+export async function loader(args: Route.LoaderArgs) {
+  const { db, access } = await requireRound(args, "read-claims");
+  const { round } = access;
+  const claim = await claimOfRound(db, round.id, args.params.claimId);
+  const [runs, flags] = await Promise.all([roundRunList(db, round.id), roundFlags(db, round.id)]);
+  return {
+    claim: { id: claim.id, version: claim.version, figure: claim.figure, statement: claim.statement, record: claim.record },
+    runs: runs.map((r) => ({ id: r.runId, label: r.label })),
+    flags: flags.filter((f) => f.claimId === claim.id),
+    canEdit: access.can("write-claims"),
+  };
+}
+
+export async function action(args: Route.ActionArgs) {
+  const { db, access } = await requireRound(args, "write-claims");
+  const { round } = access;
+  const claim = await claimOfRound(db, round.id, args.params.claimId);
+  const form = await args.request.formData();
+  try {
+    if (form.get("intent") === "delete") {
+      await removeClaim(db, round.id, claim.id);
+      throw redirect(href("/venues/:venueId/submissions/:submissionId/rounds/:round/claims", args.params));
+    }
+    await changeClaim(db, round.id, claim.id, Number(form.get("version")), {
+      record: parseJsonText(String(form.get("record") ?? "")),
+      figure: String(form.get("figure") ?? "") || null,
+      statement: String(form.get("statement") ?? ""),
+    });
+    return { ok: true };
+  } catch (e) {
+    if (e instanceof Response) throw e;
+    return serviceError(e);
+  }
+}
+
+export default function Claim({ loaderData: d, params }: Route.ComponentProps) {
+  const p = { venueId: params.venueId, submissionId: params.submissionId, round: params.round };
+  const runId = new Map(d.runs.map((r) => [r.label, r.id]));
+  return (
+    <div className="flex flex-col gap-6">
+      <section className="card" aria-label="Claim">
+        <ClaimEditor
+          initial={claimDraftOf(d.claim)}
+          runLabels={d.runs.map((r) => r.label)}
+          intent="update"
+          version={d.claim.version}
+          readOnly={!d.canEdit}
+        />
+        {d.canEdit ? (
+          <Form method="post" className="mt-4">
+            <input type="hidden" name="intent" value="delete" />
+            <button type="submit" className="btn-quiet btn">
+              Delete the claim
+            </button>
+          </Form>
+        ) : null}
+      </section>
+      <FlagsPanel
+        flags={d.flags}
+        runLabels={d.runs.map((r) => r.label)}
+        claims={[]}
+        runHref={(label) => (runId.get(label) ? href("/venues/:venueId/submissions/:submissionId/rounds/:round/runs/:runId", { ...p, runId: runId.get(label)! }) : null)}
+        claimHref={(_id, row) => (row !== null ? `#stated-${row}` : "#")}
+        answerAction={d.canEdit ? (id) => href("/venues/:venueId/submissions/:submissionId/rounds/:round/flags/:flagId/answer", { ...p, flagId: id }) : undefined}
+      />
+    </div>
+  );
+}

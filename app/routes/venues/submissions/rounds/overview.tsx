@@ -1,0 +1,104 @@
+import { Form, href, redirect } from "react-router";
+import { requireRound } from "~/access/page-guards.server";
+import { FlagsPanel } from "~/components/workspace/flags-panel";
+import { ParameterSpaceChart } from "~/components/workspace/plots";
+import { serviceError } from "~/workspace/action-errors.server";
+import { roundClaims } from "~/workspace/claims.server";
+import { roundFlags } from "~/workspace/flags-query.server";
+import { roundRunRows } from "~/workspace/round-data.server";
+import { fieldId, fieldForQuantity } from "~/workspace/run-form";
+import { sendRound } from "~/workspace/send.server";
+import type { Route } from "./+types/overview";
+
+export const meta: Route.MetaFunction = () => [{ title: "Round overview · Runproof" }];
+
+export async function loader(args: Route.LoaderArgs) {
+  const { db, access } = await requireRound(args, "open-round");
+  // Someone invited to review, who has not answered yet, starts at the invitation.
+  if (!access.can("read-flags")) throw redirect(href("/venues/:venueId/submissions/:submissionId/rounds/:round/review", args.params));
+  const round = access.round;
+  const [flags, runs, claims] = await Promise.all([roundFlags(db, round.id), roundRunRows(db, round.id), roundClaims(db, round.id)]);
+  const url = new URL(args.request.url);
+  const initial = Object.fromEntries(["severity", "rule", "run", "claim"].map((k) => [k, url.searchParams.get(k) ?? ""]));
+  return {
+    flags,
+    runs: runs.map((r) => ({ runId: r.runId, label: r.label, E: r.E, RaRotating: r.RaRotating })),
+    claims: claims.map((c) => ({ id: c.id, title: [c.figure, (c.record as { title?: string }).title].filter(Boolean).join(": ") || "claim" })),
+    draft: round.state === "draft",
+    version: round.version,
+    canAnswer: access.can("answer-flags"),
+    canSend: access.can("send-round"),
+    showSendPanel: access.can("write-runs"),
+    initial,
+  };
+}
+
+export async function action(args: Route.ActionArgs) {
+  const { db, access, user } = await requireRound(args, "send-round");
+  const form = await args.request.formData();
+  try {
+    await sendRound(db, { roundId: access.round.id, userId: user.id, expectedVersion: Number(form.get("version")) });
+  } catch (e) {
+    return serviceError(e);
+  }
+  throw redirect(new URL(args.request.url).pathname + "?sent=1");
+}
+
+export default function RoundOverview({ loaderData: d, actionData, params }: Route.ComponentProps) {
+  const p = { venueId: params.venueId, submissionId: params.submissionId, round: params.round };
+  const runId = new Map(d.runs.map((r) => [r.label, r.runId]));
+  const open = d.flags.filter((f) => f.severity === "mismatch" && !f.authorAnswer).length;
+  return (
+    <div className="grid gap-6 lg:grid-cols-[2fr_1fr]">
+      <FlagsPanel
+        flags={d.flags}
+        runLabels={d.runs.map((r) => r.label)}
+        claims={d.claims}
+        initial={d.initial}
+        runHref={(label, q) => {
+          const id = runId.get(label);
+          const f = q.map(fieldForQuantity).find(Boolean);
+          return id ? `${href("/venues/:venueId/submissions/:submissionId/rounds/:round/runs/:runId", { ...p, runId: id })}${f ? `#${fieldId(f)}` : ""}` : null;
+        }}
+        claimHref={(id, row) => `${href("/venues/:venueId/submissions/:submissionId/rounds/:round/claims/:claimId", { ...p, claimId: id })}${row !== null ? `#stated-${row}` : ""}`}
+        answerAction={d.canAnswer ? (id) => href("/venues/:venueId/submissions/:submissionId/rounds/:round/flags/:flagId/answer", { ...p, flagId: id }) : undefined}
+      />
+      <aside className="flex flex-col gap-4">
+        {d.showSendPanel ? (
+          <section className="card" aria-labelledby="send-h" data-testid="send-panel">
+            <h3 id="send-h" className="text-lead">
+              Send to the editor
+            </h3>
+            <p className="mt-1 text-caption">
+              Sending freezes this round: its run versions and claims. Every mismatch flag must first be fixed (change the run or claim) or answered with an
+              explanation.
+            </p>
+            <p className="mt-2 font-semibold" data-testid="open-mismatches">
+              {open === 0 ? "No mismatch is left open." : `${open} mismatch flag(s) still open.`}
+            </p>
+            {actionData?.error ? (
+              <p role="alert" className="field-error mt-2">
+                {actionData.error.message}
+              </p>
+            ) : null}
+            {d.canSend ? (
+              <Form method="post" className="mt-3">
+                <input type="hidden" name="version" value={d.version} />
+                <button type="submit" className="btn disabled:cursor-not-allowed disabled:opacity-50" disabled={open > 0}>
+                  Send round {params.round} to the editor
+                </button>
+              </Form>
+            ) : (
+              <p className="mt-2 text-caption">The corresponding author sends the round.</p>
+            )}
+          </section>
+        ) : (
+          <p className="card text-caption" data-testid="sent-note">
+            {d.draft ? "This round is a draft." : "This round was sent to the editor and is frozen."}
+          </p>
+        )}
+        <ParameterSpaceChart points={d.runs} />
+      </aside>
+    </div>
+  );
+}

@@ -1,0 +1,258 @@
+import { parseWithZod } from "@conform-to/zod/v4";
+import { useCallback, useState } from "react";
+import { data, Form, href, redirect, useFetcher } from "react-router";
+import { notFound, requireRound } from "~/access/page-guards.server";
+import { isId } from "~/access/relation.server";
+import { AdvisoryNote } from "~/components/advisory-note";
+import { FlagItem } from "~/components/review/flag-item";
+import { RemarkForm, type AnchorOption } from "~/components/review/remark-form";
+import { RichText } from "~/components/review/rich-text";
+import { RichTextEditor } from "~/components/review/rich-text-editor";
+import { VerdictButtons } from "~/components/review/verdict-buttons";
+import { SeriesChart, SpectrumChart } from "~/components/workspace/plots";
+import { RunsTable } from "~/components/workspace/runs-table";
+import { asActionError } from "~/workspace/action-errors.server";
+import { respondAsInvitee } from "~/review/invitations.server";
+import { RECOMMENDATIONS, remarkSchema, reportMetaSchema, verdictSchema } from "~/review/forms";
+import { deleteRemark, saveRemark, saveReportMeta, setVerdict, submitReview } from "~/review/reviews.server";
+import { OPEN_STATES } from "~/review/states";
+import { reviewerView } from "~/review/workspace.server";
+import type { Route } from "./+types/review";
+
+export const meta: Route.MetaFunction = ({ params }) => [{ title: `Review of round ${params.round} · Runproof` }];
+
+export async function loader(args: Route.LoaderArgs) {
+  const { db, access: ctx } = await requireRound(args, "open-round");
+  if (ctx.can("respond-invitation") && ctx.invitation) {
+    return {
+      invitation: { dueAt: ctx.invitation.dueAt.toISOString().slice(0, 10), title: ctx.submission.title, abstract: ctx.submission.abstract, venue: ctx.venue.name, round: ctx.round.number },
+    };
+  }
+  const review = ctx.review;
+  if (!review || !ctx.can("read-own-review")) throw notFound();
+  const view = await reviewerView(db, ctx, review, { showAuthors: ctx.can("read-author-identities") });
+  return {
+    invitation: null,
+    venue: { id: ctx.venue.id, name: ctx.venue.name, blinding: ctx.venue.blinding },
+    submission: { id: ctx.submission.id, title: ctx.submission.title },
+    round: { number: ctx.round.number, state: ctx.round.state },
+    review: { number: review.number, state: review.state, recommendation: review.recommendation, editorNote: review.editorNote, dueAt: review.dueAt?.toISOString().slice(0, 10) ?? null },
+    ...view,
+  };
+}
+
+const bad = (error: string) => data({ ok: false as const, error }, { status: 400 });
+
+export async function action(args: Route.ActionArgs) {
+  const form = await args.request.formData();
+  const intent = String(form.get("intent"));
+  if (intent === "accept-invitation" || intent === "decline-invitation") {
+    const { db, user, access } = await requireRound(args, "respond-invitation");
+    if (!access.invitation) throw notFound();
+    try {
+      await respondAsInvitee(db, { invitation: access.invitation, answer: intent === "accept-invitation" ? "accept" : "decline", userId: user.id });
+    } catch (error) {
+      const res = asActionError(error);
+      return data({ ok: false as const, error: res.data.error }, res.init ?? undefined);
+    }
+    throw redirect(intent === "accept-invitation" ? href("/venues/:venueId/submissions/:submissionId/rounds/:round/review", args.params) : href("/dashboard"));
+  }
+  const { db, user, access: ctx } = await requireRound(args, "review");
+  const review = ctx.review!;
+  try {
+    if (intent === "verdict") {
+      const p = parseWithZod(form, { schema: verdictSchema });
+      if (p.status !== "success") return bad("Choose agree, dispute or ask the authors.");
+      await setVerdict(db, review, p.value.flagId, p.value.verdict);
+      return { ok: true as const };
+    }
+    if (intent === "remark") {
+      const p = parseWithZod(form, { schema: remarkSchema });
+      if (p.status !== "success") return bad(Object.values(p.error ?? {}).flat().join(" ") || "The remark could not be read.");
+      await saveRemark(db, review, p.value);
+      return { ok: true as const };
+    }
+    if (intent === "delete-remark") {
+      const remarkId = String(form.get("remarkId") ?? "");
+      if (!isId(remarkId)) return bad("Choose the remark to delete.");
+      await deleteRemark(db, review, remarkId);
+      return { ok: true as const };
+    }
+    if (intent === "meta" || intent === "submit") {
+      const parsed = parseWithZod(form, { schema: reportMetaSchema.omit({ intent: true }) });
+      if (parsed.status !== "success") return bad("The recommendation or note could not be read.");
+      await saveReportMeta(db, review, parsed.value);
+      if (intent === "submit") await submitReview(db, { ...review, recommendation: (parsed.value.recommendation ?? null) as never }, user.id);
+      return { ok: true as const };
+    }
+    return bad("Unknown action.");
+  } catch (error) {
+    const res = asActionError(error);
+    return data({ ok: false as const, error: res.data.error }, res.init ?? undefined);
+  }
+}
+
+type WorkspaceData = Extract<Route.ComponentProps["loaderData"], { invitation: null }>;
+type InvitationData = Exclude<Route.ComponentProps["loaderData"], { invitation: null }>["invitation"];
+
+const isLocked = (d: WorkspaceData) => d.review.state === "submitted" || !(OPEN_STATES as readonly string[]).includes(d.round.state);
+
+function ReportForm({ d }: { d: WorkspaceData }) {
+  const fetcher = useFetcher<{ ok: boolean; error?: string }>();
+  const locked = isLocked(d);
+  return (
+    <fetcher.Form method="post" className="flex flex-col gap-3" data-testid="report-form">
+      <label className="flex flex-col gap-1">
+        <span className="font-semibold">Recommendation</span>
+        <select name="recommendation" defaultValue={d.review.recommendation ?? ""} disabled={locked} className="field-input">
+          <option value="">Choose…</option>
+          {RECOMMENDATIONS.map((o) => <option key={o.value} value={o.value}>{o.label}</option>)}
+        </select>
+      </label>
+      {locked ? null : <RichTextEditor id="note" name="editorNote" label="Note for the editor only (never shown to the authors)" initial={d.review.editorNote ?? undefined} />}
+      {locked ? null : (
+        <div className="flex gap-3">
+          <button className="btn-quiet" type="submit" name="intent" value="meta" disabled={fetcher.state !== "idle"}>Save</button>
+          <button className="btn" type="submit" name="intent" value="submit" disabled={fetcher.state !== "idle"}>Submit the report</button>
+        </div>
+      )}
+      {fetcher.data && !fetcher.data.ok ? <p role="alert" className="field-error">{fetcher.data.error}</p> : null}
+      {fetcher.state === "idle" && fetcher.data?.ok ? <p role="status" className="text-caption">Saved.</p> : null}
+    </fetcher.Form>
+  );
+}
+
+function InvitationAnswer({ invitation: i, error }: { invitation: NonNullable<InvitationData>; error?: string }) {
+  return (
+    <section className="card max-w-2xl" aria-labelledby="inv-h" data-testid="invitation-answer">
+      <h3 id="inv-h" className="text-lead">
+        You are invited to review round {i.round}
+      </h3>
+      <p className="mt-1 text-caption">
+        {i.venue} · report due {i.dueAt}
+      </p>
+      <h4 className="mt-3 font-semibold">{i.title}</h4>
+      {i.abstract ? <p className="mt-1 whitespace-pre-line">{i.abstract}</p> : null}
+      {error ? (
+        <p role="alert" className="field-error mt-2">
+          {error}
+        </p>
+      ) : null}
+      <Form method="post" className="mt-4 flex gap-3">
+        <button className="btn" type="submit" name="intent" value="accept-invitation">
+          Accept and start the review
+        </button>
+        <button className="btn-quiet" type="submit" name="intent" value="decline-invitation">
+          Decline
+        </button>
+      </Form>
+    </section>
+  );
+}
+
+export default function ReviewPage({ loaderData, actionData, params }: Route.ComponentProps) {
+  if (loaderData.invitation) return <InvitationAnswer invitation={loaderData.invitation} error={actionData && !actionData.ok ? String(actionData.error) : undefined} />;
+  return <ReviewWorkspace d={loaderData} p={{ venueId: params.venueId, submissionId: params.submissionId, round: params.round }} />;
+}
+
+function ReviewWorkspace({ d, p }: { d: WorkspaceData; p: { venueId: string; submissionId: string; round: string } }) {
+  const locked = isLocked(d);
+  const [editing, setEditing] = useState<string | null>(null);
+  const stopEditing = useCallback(() => setEditing(null), []);
+  const anchors: AnchorOption[] = [
+    { value: "round:", label: "The round as a whole" },
+    ...d.claims.map((c) => ({ value: `claim:${c.id}`, label: `Claim ${c.figure ?? ""} ${c.title}`.trim() })),
+    ...d.runRows.map((r) => ({ value: `run:${r.label}`, label: `Run ${r.label}` })),
+    ...d.flags.map((f) => ({ value: `flag:${f.id}`, label: `Flag ${f.rule}${f.runLabel ? ` on ${f.runLabel}` : ""}: ${f.message.slice(0, 60)}` })),
+  ];
+  return (
+    <div>
+      <p className="text-caption">Your report as Reviewer {d.review.number}{d.review.dueAt ? ` · due ${d.review.dueAt}` : ""}</p>
+      <p className="mt-1">
+        Round {d.round.number} (frozen) ·{" "}
+        {d.review.state === "submitted" ? <strong data-testid="report-locked">Report submitted and locked</strong> : locked ? <strong>The round was decided; this report stays as it is</strong> : "report in progress"} ·{" "}
+        <a className="underline" href={href("/venues/:venueId/submissions/:submissionId/rounds/:round/packet.pdf", p)}>Packet (PDF)</a>
+        {d.round.number > 1 ? <> · <a className="underline" href={href("/venues/:venueId/submissions/:submissionId/rounds/:round/changes", p)}>Changes since round {d.round.number - 1}</a></> : null}
+      </p>
+      {d.authors.length ? <p className="mt-1 text-caption" data-testid="authors">{d.authors.map((a) => `${a.name}${a.affiliation ? ` (${a.affiliation})` : ""}`).join("; ")}</p> : null}
+      <div className="mt-6 grid gap-6 lg:grid-cols-2">
+        <div className="flex flex-col gap-4">
+          <section className="card" aria-labelledby="claims-h">
+            <h2 id="claims-h" className="text-lead">Claims</h2>
+            <ul className="mt-2 flex flex-col gap-2">
+              {d.claims.map((c) => (
+                <li key={c.id} data-testid="claim">
+                  <p className="font-semibold">{c.figure ? `${c.figure}: ` : ""}{c.title}</p>
+                  {c.statement ? <p className="text-caption">{c.statement}</p> : null}
+                  <p className="text-caption text-basalt-soft">Runs: {c.runs.map((r) => `${r.label} (${r.part})`).join(", ")}</p>
+                  <p className="text-caption text-basalt-soft">Stated: {c.stated.map((s) => `${s.quantity} ${s.value}${s.run ? ` (${s.run})` : ""}`).join("; ")}</p>
+                </li>
+              ))}
+            </ul>
+          </section>
+          <section className="card" aria-labelledby="runs-h">
+            <h2 id="runs-h" className="text-lead">Runs</h2>
+            <RunsTable rows={d.runRows} runHref={(r) => href("/venues/:venueId/submissions/:submissionId/rounds/:round/runs/:runId", { ...p, runId: r.runId })} />
+          </section>
+          <section className="card" aria-labelledby="plots-h" id="plots">
+            <h2 id="plots-h" className="text-lead">Plots</h2>
+            {d.plots.every((p) => !p.series && !p.spectrum) ? <p className="text-caption text-basalt-soft">No series or spectra were uploaded for these runs.</p> : null}
+            {d.plots.map((p) => (
+              <div key={p.label} className="mt-2">
+                {p.series ? <SeriesChart plot={p.series} title={`${p.label}: time series`} /> : null}
+                {p.spectrum ? <SpectrumChart plot={p.spectrum} title={`${p.label}: spectrum`} /> : null}
+              </div>
+            ))}
+          </section>
+        </div>
+        <div className="flex flex-col gap-4">
+          <section className="card" aria-labelledby="flags-h">
+            <h2 id="flags-h" className="text-lead">Flags ({d.flags.length})</h2>
+            <AdvisoryNote className="mt-2" />
+            <ul className="mt-2 flex flex-col gap-2">
+              {d.flags.map((f) => (
+                <FlagItem key={f.id} flag={f}>
+                  <VerdictButtons flagId={f.id} saved={d.verdicts[f.id]} locked={locked} />
+                </FlagItem>
+              ))}
+            </ul>
+          </section>
+          <section className="card" aria-labelledby="remarks-h">
+            <h2 id="remarks-h" className="text-lead">Your remarks</h2>
+            <ul className="mt-2 flex flex-col gap-2" data-testid="my-remarks">
+              {d.remarks.map((m) =>
+                editing === m.id ? (
+                  <li key={m.id} className="border-l-2 border-lichen pl-2">
+                    <RemarkForm anchors={anchors} locked={locked} defaultAnchor={`${m.anchorKind}:${m.anchorRef ?? ""}`} remark={{ id: m.id, body: m.body }} onDone={stopEditing} />
+                  </li>
+                ) : (
+                  <li key={m.id} className="border-l-2 border-rule pl-2">
+                    <p className="text-caption text-basalt-soft">On {m.anchor}</p>
+                    <RichText html={m.html} />
+                    {locked ? null : (
+                      <div className="flex gap-3">
+                        <button className="text-caption underline" type="button" onClick={() => setEditing(m.id)}>Edit</button>
+                        <Form method="post" navigate={false}>
+                          <input type="hidden" name="intent" value="delete-remark" />
+                          <input type="hidden" name="remarkId" value={m.id} />
+                          <button className="text-caption underline" type="submit">Delete</button>
+                        </Form>
+                      </div>
+                    )}
+                  </li>
+                ),
+              )}
+            </ul>
+            <div className="mt-3">
+              <RemarkForm anchors={anchors} locked={locked} />
+            </div>
+          </section>
+          <section className="card" aria-labelledby="report-h">
+            <h2 id="report-h" className="text-lead">Recommendation and note</h2>
+            <ReportForm d={d} />
+          </section>
+        </div>
+      </div>
+    </div>
+  );
+}

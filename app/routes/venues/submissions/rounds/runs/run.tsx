@@ -1,0 +1,137 @@
+import { data, href } from "react-router";
+import { FlagsPanel } from "~/components/workspace/flags-panel";
+import { SeriesChart, SpectrumChart } from "~/components/workspace/plots";
+import { RunForm } from "~/components/workspace/run-form";
+import { CsvUpload } from "~/components/workspace/upload";
+import type { RunRecord } from "~/checker/schema";
+import { env } from "~/config/env.server";
+import { serviceError } from "~/workspace/action-errors.server";
+import { requireRound } from "~/access/page-guards.server";
+import { roundFlags } from "~/workspace/flags-query.server";
+import { runPlots } from "~/workspace/round-data.server";
+import { fieldId, fieldForQuantity, formToRecord, recordToValues } from "~/workspace/run-form";
+import { editRun } from "~/workspace/run-edits.server";
+import { roundRunList, runVersionHistory } from "~/workspace/runs.server";
+import type { Route } from "./+types/run";
+
+export const meta: Route.MetaFunction = ({ data }) => [{ title: `Run ${data?.run.label ?? ""} · Runproof` }];
+
+async function runOfRound(db: Parameters<typeof roundRunList>[0], roundId: string, runId: string) {
+  const run = (await roundRunList(db, roundId)).find((r) => r.runId === runId);
+  if (!run) throw data("Not found", { status: 404 });
+  return run;
+}
+
+export async function loader(args: Route.LoaderArgs) {
+  const { db, access } = await requireRound(args, "read-runs");
+  const { round } = access;
+  const run = await runOfRound(db, round.id, args.params.runId);
+  const [history, plots, flags] = await Promise.all([
+    runVersionHistory(db, run.runId),
+    runPlots(db, run.versionId, run.record as RunRecord),
+    roundFlags(db, round.id),
+  ]);
+  return {
+    run: { runId: run.runId, label: run.label, version: run.version, origin: run.origin, values: recordToValues(run.record), record: run.record },
+    // A frozen round shows only the versions up to the one it used.
+    history: history.filter((h) => h.version <= run.version || round.state === "draft").map((h) => ({ version: h.version, origin: h.origin, createdAt: h.createdAt.toISOString() })),
+    plots,
+    flags: flags.filter((f) => f.runLabel === run.label),
+    canEdit: access.can("write-runs"),
+    limitBytes: env.UPLOAD_LIMIT_MB * 1024 * 1024,
+  };
+}
+
+export async function action(args: Route.ActionArgs) {
+  const { db, access, user } = await requireRound(args, "write-runs");
+  const { round } = access;
+  const run = await runOfRound(db, round.id, args.params.runId);
+  const form = await args.request.formData();
+  try {
+    const out = await editRun(db, {
+      runId: run.runId,
+      roundId: round.id,
+      input: formToRecord(form),
+      origin: "form",
+      userId: user.id,
+      expectedVersion: Number(form.get("expectedVersion")),
+    });
+    return { ok: true as const, version: out.version.version };
+  } catch (e) {
+    return serviceError(e);
+  }
+}
+
+export default function Run({ loaderData: d, actionData, params }: Route.ComponentProps) {
+  const p = { venueId: params.venueId, submissionId: params.submissionId, round: params.round };
+  const error = actionData && "error" in actionData ? actionData.error : undefined;
+  return (
+    <div className="flex flex-col gap-6">
+      <div>
+        <h3 className="text-lead">
+          Run <span className="font-mono">{d.run.label}</span>
+        </h3>
+        <p className="text-caption text-basalt-soft">
+          Version {d.run.version} ({d.run.origin}) is the one this round uses. History:{" "}
+          {d.history.map((h) => `v${h.version} (${h.origin}, ${h.createdAt.slice(0, 10)})`).join(" · ")}
+        </p>
+        {actionData && "ok" in actionData ? (
+          <p role="status" className="mt-2 text-lichen">
+            Saved as version {actionData.version}; the checker re-ran.
+          </p>
+        ) : null}
+      </div>
+      <FlagsPanel
+        flags={d.flags}
+        runLabels={[d.run.label]}
+        claims={[]}
+        runHref={(_l, q) => {
+          const f = q.map(fieldForQuantity).find(Boolean);
+          return f ? `#${fieldId(f)}` : null;
+        }}
+        answerAction={d.canEdit ? (id) => href("/venues/:venueId/submissions/:submissionId/rounds/:round/flags/:flagId/answer", { ...p, flagId: id }) : undefined}
+      />
+      <section aria-labelledby="plots-h" className="flex flex-col gap-4">
+        <h3 id="plots-h" className="text-lead">
+          Series and spectra
+        </h3>
+        {d.plots.series ? <SeriesChart plot={d.plots.series} title="Time series" /> : <p className="text-caption">No time series attached.</p>}
+        {d.plots.spectrum ? <SpectrumChart plot={d.plots.spectrum} title="Spectrum" /> : <p className="text-caption">No spectrum attached.</p>}
+        {d.plots.files.length ? (
+          <ul className="text-caption" data-testid="attachments">
+            {d.plots.files.map((f) => (
+              <li key={f.id}>
+                {f.kind}: {f.filename} — {f.rowCount} rows, {Math.ceil(f.size / 1024)} KB
+              </li>
+            ))}
+          </ul>
+        ) : null}
+        {d.canEdit ? (
+          <div className="grid gap-4 md:grid-cols-2">
+            <CsvUpload action={href("/venues/:venueId/submissions/:submissionId/rounds/:round/runs/:runId/attachments", { ...p, runId: d.run.runId })} kind="series" label="Attach a time series" limitBytes={d.limitBytes} />
+            <CsvUpload action={href("/venues/:venueId/submissions/:submissionId/rounds/:round/runs/:runId/attachments", { ...p, runId: d.run.runId })} kind="spectrum" label="Attach a spectrum" limitBytes={d.limitBytes} />
+          </div>
+        ) : null}
+      </section>
+      <section aria-labelledby="record-h">
+        <h3 id="record-h" className="text-lead">
+          Run record
+        </h3>
+        {d.canEdit ? (
+          <RunForm
+            key={d.run.version}
+            intent="edit"
+            submitLabel="Save as a new version"
+            values={d.run.values}
+            lockLabel
+            message={error?.message}
+            issues={error?.issues ?? []}
+            extra={<input type="hidden" name="expectedVersion" value={d.run.version} />}
+          />
+        ) : (
+          <pre className="overflow-auto rounded border border-rule p-3 text-caption">{JSON.stringify(d.run.record, null, 2)}</pre>
+        )}
+      </section>
+    </div>
+  );
+}
