@@ -5,6 +5,7 @@ import { dbMiddleware, edgeInputMiddleware } from "./middleware.server";
 import { ErrorView } from "./components/error-view";
 import { useNonce } from "./lib/nonce";
 import "./app.css";
+import "./lib/zod-messages";
 import { z } from "zod";
 
 // In the browser zod would probe `new Function` for faster parsing; the script policy forbids eval,

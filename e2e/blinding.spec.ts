@@ -56,9 +56,9 @@ test("an author's pages and responses of a decided round carry no reviewer ident
   expect(letter.status()).toBe(200);
   seen.push({ url: "letter.pdf", body: await pdfText(await letter.body()) });
   // The reviewer workspace and the editor's page are closed to authors.
-  expect((await page.request.get(`/review/${fx.submissionId}/rounds/1`)).status()).toBe(404);
-  expect((await page.request.get(`/venues/${fx.venueId}/desk/${fx.submissionId}/rounds/1`)).status()).toBe(404);
-  expect((await page.request.get(`/venues/${fx.venueId}/desk/${fx.submissionId}/rounds/1/packet.pdf`)).status()).toBe(404);
+  expect((await page.request.get(`/venues/${fx.venueId}/submissions/${fx.submissionId}/rounds/1/review`)).status()).toBe(404);
+  expect((await page.request.get(`/venues/${fx.venueId}/submissions/${fx.submissionId}/rounds/1/desk`)).status()).toBe(404);
+  expect((await page.request.get(`/venues/${fx.venueId}/submissions/${fx.submissionId}/rounds/1/packet.pdf`)).status()).toBe(404);
 
   expect(seen.length).toBeGreaterThan(5);
   expect(seen.some((s) => s.body.includes("reviewer1 remark on the round"))).toBe(true);
@@ -68,17 +68,17 @@ test("an author's pages and responses of a decided round carry no reviewer ident
 test("a reviewer cannot see another reviewer's editor-only note", async ({ page }) => {
   await login(page, "reviewer2");
   const seen = recordResponses(page);
-  await page.goto(`/review/${fx.submissionId}/rounds/1`);
+  await page.goto(`/venues/${fx.venueId}/submissions/${fx.submissionId}/rounds/1/review`);
   await expect(page.getByRole("heading", { level: 1, name: title })).toBeVisible();
   const html = await page.content();
   expect(html).not.toContain("SECRET-NOTE-reviewer1");
   expect(html).not.toContain("reviewer1 remark");
-  const dataRes = await page.request.get(`/review/${fx.submissionId}/rounds/1.data`);
+  const dataRes = await page.request.get(`/venues/${fx.venueId}/submissions/${fx.submissionId}/rounds/1/review.data`);
   seen.push({ url: "workspace.data", body: await dataRes.text() });
   for (const s of seen) expect(s.body, s.url).not.toContain("SECRET-NOTE-reviewer1");
   // Their own note is theirs to read; the editor's page stays closed.
   expect(seen.some((s) => s.body.includes("SECRET-NOTE-reviewer2"))).toBe(true);
-  expect((await page.request.get(`/venues/${fx.venueId}/desk/${fx.submissionId}/rounds/1`)).status()).toBe(404);
+  expect((await page.request.get(`/venues/${fx.venueId}/submissions/${fx.submissionId}/rounds/1/desk`)).status()).toBe(404);
 });
 
 test("a declined invitation link cannot be used again", async ({ page }) => {

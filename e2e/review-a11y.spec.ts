@@ -22,14 +22,14 @@ test("the editor's desk and round page", async ({ page }) => {
   await page.goto(`/venues/${fx.venueId}/desk`);
   await expect(page.getByRole("heading", { level: 1 })).toBeVisible();
   expect(await seriousViolations(page)).toEqual([]);
-  await page.goto(`/venues/${fx.venueId}/desk/${fx.submissionId}/rounds/1`);
+  await page.goto(`/venues/${fx.venueId}/submissions/${fx.submissionId}/rounds/1/desk`);
   await expect(page.getByTestId("audit-log")).toBeVisible();
   expect(await seriousViolations(page)).toEqual([]);
 });
 
 test("the reviewer's workspace", async ({ page }) => {
   await login(page, "reviewer1");
-  await page.goto(`/review/${fx.submissionId}/rounds/1`);
+  await page.goto(`/venues/${fx.venueId}/submissions/${fx.submissionId}/rounds/1/review`);
   await expect(page.getByTestId("flag").first()).toBeVisible();
   expect(await seriousViolations(page)).toEqual([]);
 });

@@ -90,7 +90,7 @@ test("editor invites two reviewers, both review, the editor decides, the authors
   const editor = await as(browser, "editor");
   await editor.goto(`/venues/${fx.venueId}/desk`);
   await editor.getByTestId("queue-sent").getByRole("link", { name: title }).click();
-  await expect(editor.getByTestId("round-state")).toContainText("Round 1 · sent");
+  await expect(editor.getByTestId("desk-round-state")).toContainText("Round 1 · with the editor");
 
   // Conflict guard: a co-author cannot be invited.
   await editor.getByLabel("E-mail").fill(demo("coauthor1").email);
@@ -113,17 +113,17 @@ test("editor invites two reviewers, both review, the editor decides, the authors
   await waitForMail(demo("editor").email, `Review submitted: ${title}`);
 
   await editor.reload();
-  await expect(editor.getByTestId("round-state")).toContainText("reviews-in");
+  await expect(editor.getByTestId("desk-round-state")).toContainText("reviews in");
   await expect(editor.getByTestId("report-1")).toContainText("R1 confidential note");
   await expect(editor.getByTestId("report-2")).toContainText("R2 flag remark");
   await editor.getByRole("combobox").selectOption("major-revision");
   await writeInEditor(editor, "letter-editor", "Please reconcile the magnetic Prandtl number with the diffusivities.");
   await editor.getByRole("button", { name: "Release decision to the authors" }).click();
-  await expect(editor.getByTestId("decision-released")).toContainText("major-revision");
+  await expect(editor.getByTestId("decision-released")).toContainText("Major revision");
   await expect(editor.getByTestId("audit-log")).toContainText("decision.released");
   await expect(editor.getByTestId("audit-log")).toContainText("invitation.accepted");
 
-  const packet = await editor.request.get(`/venues/${fx.venueId}/desk/${fx.submissionId}/rounds/1/packet.pdf`);
+  const packet = await editor.request.get(`/venues/${fx.venueId}/submissions/${fx.submissionId}/rounds/1/packet.pdf`);
   expect(packet.headers()["content-type"]).toBe("application/pdf");
   const packetText = await pdfText(await packet.body());
   expect(packetText).toContain("A.pm-from-diffusivities");
@@ -141,7 +141,7 @@ test("editor invites two reviewers, both review, the editor decides, the authors
 
   const author = await as(browser, "author");
   await author.goto(linkIn(decisionMail, `${ORIGIN}/venues/`));
-  await expect(author.getByRole("heading", { level: 1 })).toContainText("major-revision");
+  await expect(author.getByRole("heading", { name: /Decision on round 1/ })).toContainText("Major revision");
   const remarks = author.getByTestId("released-remark");
   await expect(remarks).toHaveCount(4);
   await expect(remarks.first()).toContainText("Reviewer 1");
@@ -162,7 +162,7 @@ test("editor invites two reviewers, both review, the editor decides, the authors
   await expect(author.getByText("We recomputed Pm from the corrected diffusivity.")).toBeVisible();
 
   // Round 2 on the desk: the editor invites round 1's reviewers again with one click.
-  await editor.goto(`/venues/${fx.venueId}/desk/${fx.submissionId}/rounds/2`);
+  await editor.goto(`/venues/${fx.venueId}/submissions/${fx.submissionId}/rounds/2/desk`);
   await editor.getByRole("button", { name: "Invite round 1's reviewers again" }).click();
   await expect(editor.getByRole("status")).toContainText(demo("reviewer1").email);
   await expect(editor.getByTestId("invitations")).toContainText(demo("reviewer2").email);

@@ -2,7 +2,7 @@ import { eq } from "drizzle-orm";
 import { user } from "~db/schema";
 import { apiError } from "~/api/errors.server";
 import type { Db } from "~/workspace/types";
-import type { Action } from "./policy";
+import type { Action } from "./round-policy";
 import { isId, resolveSubmission, roundNumberParam, type Viewer } from "./relation.server";
 
 /**

@@ -1,7 +1,7 @@
 import { and, asc, eq, inArray, or, sql } from "drizzle-orm";
 import { invitations, reviews, rounds, submissionMembers, submissions, venueMembers, venues } from "~db/schema";
 import type { Db } from "~/workspace/types";
-import { can, policyState, strongestRelation, type Action, type PolicyState, type Relation } from "./policy";
+import { can, policyState, strongestRelation, type Action, type PolicyState, type Relation } from "./round-policy";
 
 /** Who is asking: enough of the signed-in person to resolve relations (null when anonymous). */
 export type Viewer = { id: string; email: string; role?: string | null } | null;

@@ -1,4 +1,4 @@
-import { data, redirect } from "react-router";
+import { data, redirect, href } from "react-router";
 import type { RouterContextProvider } from "react-router";
 import { auth } from "~/auth/auth.server";
 import { dbContext } from "~/db.server";
@@ -24,7 +24,7 @@ export const sessionUserOf = lookUpSession;
 export function signInRedirect(request: Request) {
   const url = new URL(request.url);
   const next = url.pathname.replace(/\.data$/, "") + url.search;
-  return redirect(`/sign-in?next=${encodeURIComponent(next)}`);
+  return redirect(`${href("/sign-in")}?next=${encodeURIComponent(next)}`);
 }
 
 /** The signed-in person, or a redirect to sign-in. */

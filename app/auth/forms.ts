@@ -1,3 +1,4 @@
+import { href } from "react-router";
 import { z } from "zod";
 import { safeLocalPath } from "~/lib/edge-input";
 import { parseOrcid } from "~/lib/orcid";
@@ -50,5 +51,5 @@ export const profileSchema = z.object({
 
 /** Only same-site paths may follow sign-in; anything else falls back to the dashboard. */
 export function safeNext(next: string | null | undefined) {
-  return safeLocalPath(next, "/dashboard");
+  return safeLocalPath(next, href("/dashboard"));
 }

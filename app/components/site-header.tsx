@@ -1,4 +1,4 @@
-import { Form, Link, NavLink } from "react-router";
+import { Form, Link, NavLink, href } from "react-router";
 
 export type Viewer = { name: string; email: string; roles: string[]; admin: boolean } | null;
 
@@ -12,15 +12,15 @@ export function SiteHeader({ viewer }: { viewer: Viewer }) {
         </Link>
         <nav aria-label="Main" className="flex gap-1 text-caption">
           {viewer ? (
-            <NavLink to="/dashboard" className={nav}>
+            <NavLink to={href("/dashboard")} className={nav}>
               What needs me
             </NavLink>
           ) : null}
-          <NavLink to="/help/checks" className={nav}>
+          <NavLink to={href("/help/checks")} className={nav}>
             Checks reference
           </NavLink>
           {viewer?.admin ? (
-            <NavLink to="/admin" className={nav}>
+            <NavLink to={href("/admin")} className={nav}>
               Instance
             </NavLink>
           ) : null}
@@ -28,7 +28,7 @@ export function SiteHeader({ viewer }: { viewer: Viewer }) {
         <div className="ml-auto flex items-center gap-3 text-caption">
           {viewer ? (
             <>
-              <Link to="/account" className="text-basalt" data-testid="viewer-name">
+              <Link to={href("/account")} className="text-basalt" data-testid="viewer-name">
                 {viewer.name}
               </Link>
               <ul aria-label="Your roles" className="flex gap-1" data-testid="viewer-roles">
@@ -46,8 +46,8 @@ export function SiteHeader({ viewer }: { viewer: Viewer }) {
             </>
           ) : (
             <>
-              <Link to="/sign-in">Sign in</Link>
-              <Link to="/sign-up" className="btn py-1">
+              <Link to={href("/sign-in")}>Sign in</Link>
+              <Link to={href("/sign-up")} className="btn py-1">
                 Create an account
               </Link>
             </>

@@ -1,4 +1,4 @@
-import { Link } from "react-router";
+import { Link, href } from "react-router";
 import type { Route } from "./+types/home";
 
 export const meta: Route.MetaFunction = () => [
@@ -17,10 +17,10 @@ export default function Home() {
         afternoon on it.
       </p>
       <div className="mt-8 flex gap-3">
-        <Link to="/sign-in" className="btn">
+        <Link to={href("/sign-in")} className="btn">
           Sign in
         </Link>
-        <Link to="/help/checks" className="btn btn-quiet">
+        <Link to={href("/help/checks")} className="btn btn-quiet">
           What the checker looks at
         </Link>
       </div>

@@ -10,7 +10,7 @@ import { reviewerView } from "~/review/workspace.server";
 import { makeSentRound } from "../../e2e/support/make-sent-round";
 import { testDatabase } from "../support/test-db";
 import { dropQueuedMail } from "./outbox-cleanup";
-import { can } from "~/access/policy";
+import { can } from "~/access/round-policy";
 
 const { db, sql } = testDatabase();
 const title = `Blinding towards reviewers ${Date.now()}`;

@@ -1,4 +1,4 @@
-import { useFetcher } from "react-router";
+import { useFetcher, href } from "react-router";
 
 const OPTIONS = [
   { value: "daily", label: "Daily" },
@@ -10,7 +10,7 @@ const OPTIONS = [
 export function DigestForm({ current }: { current: string }) {
   const fetcher = useFetcher<{ ok: boolean; error: string | null }>();
   return (
-    <fetcher.Form method="post" action="/account/digest" className="card mt-6 flex flex-col gap-2" data-testid="digest-form">
+    <fetcher.Form method="post" action={href("/account/digest")} className="card mt-6 flex flex-col gap-2" data-testid="digest-form">
       <fieldset>
         <legend className="font-semibold">Digest e-mail</legend>
         <p className="text-caption text-basalt-soft">New flags, released reviewer remarks and decisions on the submissions you are listed on, in one mail per period.</p>

@@ -1,5 +1,5 @@
 import { useEffect, useRef } from "react";
-import { useRevalidator } from "react-router";
+import { href, useRevalidator } from "react-router";
 
 /** Every change to a round's runs, series or claims re-checks it, so `checkedAt` moves with them. */
 type RoundState = { checkedAt: string | null; state: string };
@@ -23,7 +23,7 @@ export function LiveRound({ submissionId, round, loaded }: { submissionId: strin
   const busy = useRef(revalidator.state !== "idle");
   busy.current = revalidator.state !== "idle";
   const { revalidate } = revalidator;
-  const url = `/api/v1/submissions/${submissionId}/rounds/${round}`;
+  const url = href("/api/v1/submissions/:submissionId/rounds/:round", { submissionId, round: String(round) });
 
   useEffect(() => {
     let inFlight = false;

@@ -1,7 +1,8 @@
-import { getFormProps, useForm } from "@conform-to/react";
+import { getFormProps } from "@conform-to/react";
+import { useCheckedForm } from "~/components/checked-form";
 import { getZodConstraint, parseWithZod } from "@conform-to/zod/v4";
 import { eq } from "drizzle-orm";
-import { data, Form, Link } from "react-router";
+import { data, Form, Link, href } from "react-router";
 import { user as userTable } from "~db/schema";
 import { profileSchema } from "~/auth/forms";
 import { requireUser } from "~/access/session.server";
@@ -34,19 +35,18 @@ export async function action(args: Route.ActionArgs) {
 
 export default function Account({ loaderData, actionData }: Route.ComponentProps) {
   const { profile } = loaderData;
-  const [form, fields] = useForm({
+  const [form, fields] = useCheckedForm({
     lastResult: actionData?.result,
     defaultValue: { name: profile.name, affiliation: profile.affiliation ?? "", orcid: profile.orcid ?? "" },
     constraint: getZodConstraint(profileSchema),
     onValidate: ({ formData }) => parseWithZod(formData, { schema: profileSchema }),
-    shouldRevalidate: "onBlur",
   });
   return (
     <main className="mx-auto max-w-xl p-gutter">
       <h1 className="text-title">Your account</h1>
       <p className="mt-2 text-basalt-soft">Signed in as {profile.email}.</p>
       <p className="mt-2">
-        <Link to="/account/tokens" className="underline">API tokens</Link> for scripts that push run records.
+        <Link to={href("/account/tokens")} className="underline">API tokens</Link> for scripts that push run records.
       </p>
       {actionData?.saved ? (
         <p className="mt-3 rounded bg-lichen-wash p-3" role="status">

@@ -1,6 +1,7 @@
-import { getFormProps, getInputProps, getSelectProps, useForm } from "@conform-to/react";
+import { getFormProps, getInputProps, getSelectProps } from "@conform-to/react";
+import { useCheckedForm } from "~/components/checked-form";
 import { getZodConstraint, parseWithZod } from "@conform-to/zod/v4";
-import { data, Form, Link, useNavigation } from "react-router";
+import { data, Form, Link, useNavigation, href } from "react-router";
 import { createApiToken, listApiTokens, revokeApiToken } from "~/api/tokens.server";
 import { createTokenSchema, revokeTokenSchema, scopesFor } from "~/api/token-form";
 import { requireUser } from "~/access/session.server";
@@ -37,22 +38,21 @@ const day = (d: Date | string) => new Date(d).toISOString().slice(0, 10);
 
 export default function AccountTokens({ loaderData, actionData }: Route.ComponentProps) {
   const navigation = useNavigation();
-  const [form, fields] = useForm({
+  const [form, fields] = useCheckedForm({
     lastResult: navigation.state === "idle" ? actionData?.result : undefined,
     defaultValue: { access: "write", expiresInDays: "90" },
     constraint: getZodConstraint(createTokenSchema),
     onValidate: ({ formData }) => parseWithZod(formData, { schema: createTokenSchema }),
-    shouldRevalidate: "onBlur",
   });
   return (
     <main className="mx-auto max-w-2xl p-gutter">
       <p className="text-caption">
-        <Link to="/account" className="underline">Your account</Link> › API tokens
+        <Link to={href("/account")} className="underline">Your account</Link> › API tokens
       </p>
       <h1 className="text-title">API tokens</h1>
       <p className="mt-2 text-basalt-soft">
         Scripts on your cluster use a token to push run records and series to your draft rounds. See{" "}
-        <Link to="/help/api" className="underline">the API guide</Link> for examples.
+        <Link to={href("/help/api")} className="underline">the API guide</Link> for examples.
       </p>
       {actionData?.created ? (
         <section className="card mt-4 border-lichen" role="status" aria-label="New token">

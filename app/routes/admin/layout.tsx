@@ -1,4 +1,4 @@
-import { NavLink, Outlet } from "react-router";
+import { NavLink, Outlet, href } from "react-router";
 import { requireAdmin } from "~/access/session.server";
 import type { Route } from "./+types/layout";
 
@@ -15,13 +15,13 @@ export default function AdminLayout() {
     <main className="mx-auto max-w-5xl p-gutter">
       <h1 className="text-title">Instance</h1>
       <nav aria-label="Instance sections" className="mt-4 flex gap-2 border-b border-rule">
-        <NavLink to="/admin" end className={tab}>
+        <NavLink to={href("/admin")} end className={tab}>
           Overview
         </NavLink>
-        <NavLink to="/admin/venues" className={tab}>
+        <NavLink to={href("/admin/venues")} className={tab}>
           Venues and editors
         </NavLink>
-        <NavLink to="/admin/users" className={tab}>
+        <NavLink to={href("/admin/users")} className={tab}>
           Accounts
         </NavLink>
       </nav>

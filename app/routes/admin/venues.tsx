@@ -1,4 +1,5 @@
-import { getFormProps, getSelectProps, useForm } from "@conform-to/react";
+import { getFormProps, getSelectProps } from "@conform-to/react";
+import { useCheckedForm } from "~/components/checked-form";
 import { getZodConstraint, parseWithZod } from "@conform-to/zod/v4";
 import { eq } from "drizzle-orm";
 import { data, Form } from "react-router";
@@ -53,11 +54,10 @@ export async function action(args: Route.ActionArgs) {
 }
 
 export default function AdminVenues({ loaderData, actionData }: Route.ComponentProps) {
-  const [form, fields] = useForm({
+  const [form, fields] = useCheckedForm({
     lastResult: actionData?.form === "create" ? actionData.result : undefined,
     constraint: getZodConstraint(createVenueSchema),
     onValidate: ({ formData }) => parseWithZod(formData, { schema: createVenueSchema }),
-    shouldRevalidate: "onBlur",
     defaultValue: { blinding: "single" },
   });
   return (

@@ -1,4 +1,5 @@
-import { getFormProps, useForm } from "@conform-to/react";
+import { getFormProps } from "@conform-to/react";
+import { useCheckedForm } from "~/components/checked-form";
 import { getZodConstraint, parseWithZod } from "@conform-to/zod/v4";
 import { data, Form } from "react-router";
 import { isAPIError } from "better-auth/api";
@@ -29,11 +30,10 @@ export async function action({ request }: Route.ActionArgs) {
 }
 
 export default function ForgotPassword({ actionData }: Route.ComponentProps) {
-  const [form, fields] = useForm({
+  const [form, fields] = useCheckedForm({
     lastResult: actionData?.result,
     constraint: getZodConstraint(forgotSchema),
     onValidate: ({ formData }) => parseWithZod(formData, { schema: forgotSchema }),
-    shouldRevalidate: "onBlur",
   });
   return (
     <main className="mx-auto max-w-md p-gutter">

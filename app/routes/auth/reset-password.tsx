@@ -1,6 +1,7 @@
-import { getFormProps, useForm } from "@conform-to/react";
+import { getFormProps } from "@conform-to/react";
+import { useCheckedForm } from "~/components/checked-form";
 import { getZodConstraint, parseWithZod } from "@conform-to/zod/v4";
-import { data, Form, Link, redirect } from "react-router";
+import { data, Form, Link, redirect, href } from "react-router";
 import { auth } from "~/auth/auth.server";
 import { authErrorOf } from "~/auth/cookies.server";
 import { resetSchema } from "~/auth/forms";
@@ -40,15 +41,14 @@ export async function action({ request }: Route.ActionArgs) {
       { status: 400 },
     );
   }
-  throw redirect("/sign-in?reset=1");
+  throw redirect(`${href("/sign-in")}?reset=1`);
 }
 
 export default function ResetPassword({ loaderData, actionData }: Route.ComponentProps) {
-  const [form, fields] = useForm({
+  const [form, fields] = useCheckedForm({
     lastResult: actionData?.result,
     constraint: getZodConstraint(resetSchema),
     onValidate: ({ formData }) => parseWithZod(formData, { schema: resetSchema }),
-    shouldRevalidate: "onBlur",
   });
   if (!loaderData.token) {
     return (
@@ -56,7 +56,7 @@ export default function ResetPassword({ loaderData, actionData }: Route.Componen
         <h1 className="text-title">This link cannot be used</h1>
         <p className="mt-3">It has expired or was already used.</p>
         <p className="mt-3">
-          <Link to="/forgot-password">Ask for a new link</Link>
+          <Link to={href("/forgot-password")}>Ask for a new link</Link>
         </p>
       </main>
     );

@@ -1,6 +1,7 @@
-import { getFormProps, useForm } from "@conform-to/react";
+import { getFormProps } from "@conform-to/react";
+import { useCheckedForm } from "~/components/checked-form";
 import { getZodConstraint, parseWithZod } from "@conform-to/zod/v4";
-import { data, Form, Link, redirect, useSearchParams } from "react-router";
+import { data, Form, Link, redirect, useSearchParams, href } from "react-router";
 import { auth } from "~/auth/auth.server";
 import { apiErrorResponse, authErrorOf, forwardCookies } from "~/auth/cookies.server";
 import { safeNext, signInSchema } from "~/auth/forms";
@@ -47,11 +48,10 @@ export async function action({ request }: Route.ActionArgs) {
 
 export default function SignIn({ actionData }: Route.ComponentProps) {
   const [params] = useSearchParams();
-  const [form, fields] = useForm({
+  const [form, fields] = useCheckedForm({
     lastResult: actionData?.result,
     constraint: getZodConstraint(signInSchema),
     onValidate: ({ formData }) => parseWithZod(formData, { schema: signInSchema }),
-    shouldRevalidate: "onBlur",
   });
   return (
     <main className="mx-auto max-w-md p-gutter">
@@ -77,7 +77,7 @@ export default function SignIn({ actionData }: Route.ComponentProps) {
         <FormErrors errors={form.errors} id={form.errorId} />
       </Form>
       <p className="mt-6 text-caption">
-        <Link to="/forgot-password">Forgot your password?</Link> · <Link to="/sign-up">Create an account</Link>
+        <Link to={href("/forgot-password")}>Forgot your password?</Link> · <Link to={href("/sign-up")}>Create an account</Link>
       </p>
     </main>
   );

@@ -1,4 +1,4 @@
-import { redirect } from "react-router";
+import { redirect, href } from "react-router";
 import { auth } from "~/auth/auth.server";
 import { forwardCookies } from "~/auth/cookies.server";
 import type { Route } from "./+types/sign-out";
@@ -9,5 +9,5 @@ export async function loader() {
 
 export async function action({ request }: Route.ActionArgs) {
   const res = await auth.api.signOut({ headers: request.headers, asResponse: true });
-  throw redirect("/sign-in", { headers: forwardCookies(res) });
+  throw redirect(href("/sign-in"), { headers: forwardCookies(res) });
 }

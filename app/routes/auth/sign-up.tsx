@@ -1,6 +1,7 @@
-import { getFormProps, useForm } from "@conform-to/react";
+import { getFormProps } from "@conform-to/react";
+import { useCheckedForm } from "~/components/checked-form";
 import { getZodConstraint, parseWithZod } from "@conform-to/zod/v4";
-import { data, Form, Link, redirect, useSearchParams } from "react-router";
+import { data, Form, Link, redirect, useSearchParams, href } from "react-router";
 import { auth } from "~/auth/auth.server";
 import { apiErrorResponse, authErrorOf } from "~/auth/cookies.server";
 import { safeNext, signUpSchema } from "~/auth/forms";
@@ -32,16 +33,15 @@ export async function action({ request }: Route.ActionArgs) {
       { status: res.status === 429 ? 429 : 400 },
     );
   }
-  throw redirect(`/check-email?to=${encodeURIComponent(email)}`);
+  throw redirect(`${href("/check-email")}?to=${encodeURIComponent(email)}`);
 }
 
 export default function SignUp({ actionData }: Route.ComponentProps) {
   const [params] = useSearchParams();
-  const [form, fields] = useForm({
+  const [form, fields] = useCheckedForm({
     lastResult: actionData?.result,
     constraint: getZodConstraint(signUpSchema),
     onValidate: ({ formData }) => parseWithZod(formData, { schema: signUpSchema }),
-    shouldRevalidate: "onBlur",
   });
   return (
     <main className="mx-auto max-w-md p-gutter">
@@ -62,7 +62,7 @@ export default function SignUp({ actionData }: Route.ComponentProps) {
         <FormErrors errors={form.errors} id={form.errorId} />
       </Form>
       <p className="mt-6 text-caption">
-        Already registered? <Link to="/sign-in">Sign in</Link>
+        Already registered? <Link to={href("/sign-in")}>Sign in</Link>
       </p>
     </main>
   );

@@ -1,4 +1,4 @@
-import { Link } from "react-router";
+import { Link, href } from "react-router";
 import { apiPaths } from "~/api/openapi";
 import { AdvisoryNote } from "~/components/advisory-note";
 import { env } from "~/config/env.server";
@@ -54,7 +54,7 @@ export default function ApiGuide({ loaderData }: Route.ComponentProps) {
       </p>
       <h2 className="mt-6 text-heading font-semibold">Tokens</h2>
       <p className="mt-2">
-        Create a token on <Link to="/account/tokens" className="underline">Your account › API tokens</Link>. It is shown once;
+        Create a token on <Link to={href("/account/tokens")} className="underline">Your account › API tokens</Link>. It is shown once;
         Runproof keeps only its hash. Choose <em>read only</em> or <em>read and write</em> (scope <code>write:runs</code>: runs,
         series and claims of draft rounds) and an expiry. Send it as <code>Authorization: Bearer rp_…</code>. Revoke it there
         when a machine is retired. Each token may make {loaderData.perMinute} calls a minute; past that the answer is 429 with

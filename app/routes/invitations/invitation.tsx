@@ -1,4 +1,4 @@
-import { data, Form, Link, redirect } from "react-router";
+import { data, Form, Link, redirect, href } from "react-router";
 import { sessionUser } from "~/access/session.server";
 import { dbContext } from "~/db.server";
 import { roundContext } from "~/review/context.server";
@@ -23,7 +23,7 @@ export async function loader(args: Route.LoaderArgs) {
     problem: null,
     invitation: { email: inv.email, dueAt: inv.dueAt.toISOString().slice(0, 10), title: ctx.submission.title, venue: ctx.venue.name, round: ctx.round.number, answer },
     signedInAs: me ? me.email : null,
-    next: `/invitations/${args.params.token}?answer=accept`,
+    next: `${href("/invitations/:token", { token: args.params.token })}?answer=accept`,
   };
 }
 
@@ -35,13 +35,13 @@ export async function action(args: Route.ActionArgs) {
   try {
     if (answer === "accept") {
       const { inv } = await invitationByToken(db, args.params.token);
-      if (!me) throw redirect(`/sign-in?next=${encodeURIComponent(`/invitations/${args.params.token}?answer=accept`)}`);
+      if (!me) throw redirect(`${href("/sign-in")}?next=${encodeURIComponent(`${href("/invitations/:token", { token: args.params.token })}?answer=accept`)}`);
       if (inv && me.email.toLowerCase() !== inv.email.toLowerCase()) {
         return data({ error: `This invitation is for ${inv.email}; you are signed in as ${me.email}. Sign in with the invited address to accept.`, declined: false }, { status: 403 });
       }
     }
     const { ctx } = await respondToInvitation(db, { token: args.params.token, answer, userId: me?.id ?? null });
-    if (answer === "accept") throw redirect(`/review/${ctx.submission.id}/rounds/${ctx.round.number}`);
+    if (answer === "accept") throw redirect(href("/venues/:venueId/submissions/:submissionId/rounds/:round/review", { venueId: ctx.venue.id, submissionId: ctx.submission.id, round: String(ctx.round.number) }));
     return { error: null, declined: true };
   } catch (error) {
     if (error instanceof StateConflict) return data({ error: error.message, declined: false }, { status: 409 });
@@ -77,8 +77,8 @@ export default function Invitation({ loaderData: d, actionData }: Route.Componen
       {actionData?.error ? <p role="alert" className="mt-3 rounded border border-ember bg-ember-wash p-2 text-ember">{actionData.error}</p> : null}
       {!d.signedInAs ? (
         <p className="mt-3 text-caption">
-          To accept, <Link className="underline" to={`/sign-in?next=${encodeURIComponent(d.next)}`}>sign in</Link> as {inv.email} (or{" "}
-          <Link className="underline" to="/sign-up">create an account</Link> with that address) and open this link again. Declining needs no account.
+          To accept, <Link className="underline" to={`${href("/sign-in")}?next=${encodeURIComponent(d.next)}`}>sign in</Link> as {inv.email} (or{" "}
+          <Link className="underline" to={href("/sign-up")}>create an account</Link> with that address) and open this link again. Declining needs no account.
         </p>
       ) : wrongAccount ? (
         <p className="mt-3 text-caption">You are signed in as {d.signedInAs}; the invitation is for {inv.email}.</p>

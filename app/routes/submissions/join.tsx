@@ -16,7 +16,7 @@ export async function loader({ request, params, context }: Route.LoaderArgs) {
 
 export async function action(args: Route.ActionArgs) {
   const user = await sessionUser(args);
-  if (!user) throw redirect(`/sign-in?next=${encodeURIComponent(new URL(args.request.url).pathname + new URL(args.request.url).search)}`);
+  if (!user) throw redirect(`${href("/sign-in")}?next=${encodeURIComponent(new URL(args.request.url).pathname + new URL(args.request.url).search)}`);
   const token = String((await args.request.formData()).get("token") ?? "");
   const answer = await acceptContributorInvite(args.context.get(dbContext), { submissionId: args.params.submissionId, token, userId: user.id });
   if (!answer.ok) throw data(answer.message, { status: answer.reason === "other-address" ? 403 : answer.reason === "expired" ? 410 : 404 });
@@ -38,8 +38,8 @@ export default function Join({ loaderData: d }: Route.ComponentProps) {
         </Form>
       ) : (
         <p className="mt-4">
-          <Link to={`/sign-in?next=${encodeURIComponent(d.next)}`}>Sign in</Link> to join. No account yet?{" "}
-          <Link to={`/sign-up?next=${encodeURIComponent(d.next)}`}>Create one</Link> with the address the invitation was sent
+          <Link to={`${href("/sign-in")}?next=${encodeURIComponent(d.next)}`}>Sign in</Link> to join. No account yet?{" "}
+          <Link to={`${href("/sign-up")}?next=${encodeURIComponent(d.next)}`}>Create one</Link> with the address the invitation was sent
           to; the confirmation link brings you back here.
         </p>
       )}

@@ -1,4 +1,5 @@
-import { getFormProps, getInputProps, getTextareaProps, useForm } from "@conform-to/react";
+import { getFormProps, getInputProps, getTextareaProps } from "@conform-to/react";
+import { useCheckedForm } from "~/components/checked-form";
 import { getZodConstraint, parseWithZod } from "@conform-to/zod/v4";
 import { data, Form } from "react-router";
 import { TextField } from "~/components/field";
@@ -48,20 +49,18 @@ export async function action(args: Route.ActionArgs) {
 }
 
 export default function Details({ loaderData: { s, people, canEdit }, actionData }: Route.ComponentProps) {
-  const [form, fields] = useForm({
+  const [form, fields] = useCheckedForm({
     id: "details",
     lastResult: actionData?.form === "details" ? actionData.result : undefined,
     constraint: getZodConstraint(submissionSchema),
     onValidate: ({ formData }) => parseWithZod(formData, { schema: submissionSchema }),
-    shouldRevalidate: "onBlur",
     defaultValue: { title: s.title, abstract: s.abstract, keywords: s.keywords.join(", "), availability: s.availability, dois: s.dois.join(", ") },
   });
-  const [invite, inv] = useForm({
+  const [invite, inv] = useCheckedForm({
     id: "invite",
     lastResult: actionData?.form === "invite" ? actionData.result : undefined,
     constraint: getZodConstraint(contributorSchema),
     onValidate: ({ formData }) => parseWithZod(formData, { schema: contributorSchema }),
-    shouldRevalidate: "onBlur",
   });
   return (
     <div className="mt-6 grid gap-6 md:grid-cols-2">
@@ -82,9 +81,11 @@ export default function Details({ loaderData: { s, people, canEdit }, actionData
           <TextField meta={fields.keywords} label="Keywords" />
           <TextArea meta={fields.availability} label="Data and code availability" rows={3} textarea={getTextareaProps(fields.availability)} />
           <TextField meta={fields.dois} label="DOIs" hint="e.g. 10.5281/zenodo.1234567" />
-          <button type="submit" className="btn self-start">
-            Save the details
-          </button>
+          {canEdit ? (
+            <button type="submit" className="btn self-start">
+              Save the details
+            </button>
+          ) : null}
           </fieldset>
         </Form>
       </section>
@@ -113,7 +114,9 @@ export default function Details({ loaderData: { s, people, canEdit }, actionData
             </li>
           ))}
         </ol>
-        <h3 className="mt-5 font-semibold">Invite a co-author</h3>
+        {canEdit ? (
+          <>
+          <h3 className="mt-5 font-semibold">Invite a co-author</h3>
         <Form method="post" {...getFormProps(invite)} className="mt-2">
           <fieldset disabled={!canEdit} className="flex flex-col gap-3">
           <input type="hidden" name="intent" value="invite" />
@@ -137,6 +140,8 @@ export default function Details({ loaderData: { s, people, canEdit }, actionData
           </button>
           </fieldset>
         </Form>
+          </>
+        ) : null}
       </section>
     </div>
   );

@@ -1,4 +1,5 @@
-import { getFormProps, getTextareaProps, useForm } from "@conform-to/react";
+import { getFormProps, getTextareaProps } from "@conform-to/react";
+import { useCheckedForm } from "~/components/checked-form";
 import { getZodConstraint, parseWithZod } from "@conform-to/zod/v4";
 import { eq } from "drizzle-orm";
 import { data, Form, href, redirect } from "react-router";
@@ -35,11 +36,10 @@ export async function action(args: Route.ActionArgs) {
 }
 
 export default function NewSubmission({ loaderData, actionData }: Route.ComponentProps) {
-  const [form, fields] = useForm({
+  const [form, fields] = useCheckedForm({
     lastResult: actionData?.result,
     constraint: getZodConstraint(submissionSchema),
     onValidate: ({ formData }) => parseWithZod(formData, { schema: submissionSchema }),
-    shouldRevalidate: "onBlur",
   });
   return (
     <main className="mx-auto max-w-3xl p-gutter">

@@ -92,7 +92,7 @@ export default function Runs({ loaderData: d, actionData, params }: Route.Compon
               </label>
               <input id="run-json-file" type="file" name="file" accept=".json,application/json" className="field-input" />
               <p className="text-caption">
-                The format is published as a JSON Schema at <a href="/schemas/run-1.json">/schemas/run-1.json</a>.
+                The format is published as a JSON Schema at <a href={href("/schemas/run-1.json")}>/schemas/run-1.json</a>.
               </p>
               {jsonErr ? <IssueList message={jsonErr.message} issues={jsonErr.issues} testId="json-error" /> : null}
               <button type="submit" className="btn self-start">

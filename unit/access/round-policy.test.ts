@@ -5,7 +5,7 @@
  * each string: draft, sent, under review, decided, withdrawn; "x" allowed, "." refused.
  */
 import { describe, expect, it } from "vitest";
-import { ACTIONS, can, policyState, POLICY_STATES, RELATIONS, strongestRelation, type Action, type Relation } from "~/access/policy";
+import { ACTIONS, can, policyState, POLICY_STATES, RELATIONS, strongestRelation, type Action, type Relation } from "~/access/round-policy";
 
 const TABLE: Record<Action, Record<Relation, string>> = {
   "open-round": { author: "xxxxx", "co-author": "xxxxx", editor: ".xxxx", reviewer: ".xxxx", invited: ".xx..", admin: ".xxxx", none: "....." },
