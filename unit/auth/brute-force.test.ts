@@ -86,7 +86,7 @@ afterAll(async () => {
   await sql.end({ timeout: 5 });
 });
 
-describe("the /sign-in form", () => {
+describe("the /sign-in form", { timeout: 180_000 }, () => {
   it("stops answering guesses for one account after the limit, even from many addresses, and then refuses the right password too", async () => {
     const limit = RULES.signInPerAccount.points;
     for (let i = 0; i < limit; i++) {
@@ -116,7 +116,7 @@ describe("the /sign-in form", () => {
   });
 });
 
-describe("the auth endpoint /api/auth/sign-in/email", () => {
+describe("the auth endpoint /api/auth/sign-in/email", { timeout: 180_000 }, () => {
   it("throttles guesses for one account; a forged X-Forwarded-For does not give a fresh bucket", async () => {
     const from = address();
     const statuses: number[] = [];
