@@ -13,11 +13,8 @@ const host = process.env.HOST ?? "127.0.0.1";
 const grace = Number(process.env.SHUTDOWN_GRACE_MS ?? 10_000);
 
 const server = createServer(app);
-// Slow clients cannot hold a connection open forever (common practice: slowloris mitigation).
-server.headersTimeout = 20_000;
-server.requestTimeout = 120_000;
-server.keepAliveTimeout = 5_000;
-server.maxHeadersCount = 100;
+// Slow clients cannot hold a connection open forever: Node's own limits (headers within 60 s, a
+// whole request within 300 s, idle keep-alive 5 s) stay in force; see docs/reliability.md.
 
 server.listen(port, host, () => logger.info({ url: `http://${host}:${port}` }, "listening"));
 server.on("error", (error) => {
