@@ -123,3 +123,16 @@ describe("file names in downloads (RFC 6266 / RFC 8187)", () => {
     }
   });
 });
+
+describe("deeply nested JSON is refused before parsing", () => {
+  it("answers 400 for 500,000 levels and accepts ordinary records", async () => {
+    const { readJsonBody } = await import("~/api/json-body.server");
+    const deep = `${"[".repeat(500_000)}${"]".repeat(500_000)}`;
+    const res = await readJsonBody(new Request("http://x/api/v1/check", { method: "POST", body: deep }), 2 * 1024 * 1024).catch((e) => e as Response);
+    expect(res).toBeInstanceOf(Response);
+    expect((res as Response).status).toBe(400);
+    expect(((await (res as Response).json()) as { error: { code: string } }).error.code).toBe("too_deeply_nested");
+    const ok = await readJsonBody(new Request("http://x", { method: "POST", body: JSON.stringify({ runs: [{ a: { b: ["[[[[", "}}}"] } }] }) }), 1024);
+    expect(ok).toEqual({ runs: [{ a: { b: ["[[[[", "}}}"] } }] });
+  });
+});
