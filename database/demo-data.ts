@@ -12,6 +12,7 @@ export const demoPeople = [
   { key: "author", name: "Marisol Quendt", email: "author@demo.runproof.example", affiliation: "Lanthorn Institute for Veyran Geodynamics", orcid: "0000-0002-1825-0097" },
   { key: "coauthor1", name: "Henrik Salvadi", email: "coauthor1@demo.runproof.example", affiliation: "Cinder Reach University" },
   { key: "coauthor2", name: "Yun-Seo Brathe", email: "coauthor2@demo.runproof.example", affiliation: "Quell Observatory for Planetary Magnetism" },
+  { key: "editor2", name: "Ilse Marrowby", email: "editor2@demo.runproof.example", affiliation: "Tessaly Institute of Rotating Fluids" },
 ] as const;
 
 export type DemoKey = (typeof demoPeople)[number]["key"];
@@ -105,3 +106,71 @@ export const demoClaims = [
     },
   },
 ];
+
+/** A second venue of the invented society, double-blind, with its own editor. */
+export const demoBlindVenue = {
+  slug: "corvane-letters",
+  name: "Corvane Letters on Deep Interiors",
+  publisher: "Corvane Society for Planetary Interiors",
+  blinding: "double" as const,
+};
+
+type Doc = { type: "doc"; content: unknown[] };
+const text = (t: string, ...marks: string[]) => ({ type: "text", text: t, ...(marks.length ? { marks: marks.map((type) => ({ type })) } : {}) });
+const para = (...content: unknown[]) => ({ type: "paragraph", content });
+const items = (kind: "orderedList" | "bulletList", ...rows: unknown[][]) => ({
+  type: kind,
+  ...(kind === "orderedList" ? { attrs: { start: 1 } } : {}),
+  content: rows.map((r) => ({ type: "listItem", content: [para(...r)] })),
+});
+
+/**
+ * The demo's other submissions, one per stage of the review cycle. Each gets the same three runs
+ * as the draft one (the runs are the invented Veyra study), so every stage shows flags.
+ */
+export const demoStages = {
+  sent: {
+    title: "Zonal jets beneath a stratified lid on Veyra: round 1 awaiting reviewers",
+    abstract: "Sent to the editor; no reviewer has been invited yet.",
+  },
+  underReview: {
+    title: "Filtering of the non-axisymmetric field by Veyra's stable layer",
+    abstract: "Under review: Reviewer 1 has reported, Reviewer 2 is still writing.",
+  },
+  majorRevision: {
+    title: "Magnetic diffusion times and the length of Veyran dynamo runs",
+    abstract: "Decided with a major revision; the authors are preparing round 2.",
+  },
+  accepted: {
+    title: "A reference dynamo for a Mars-sized core without a stable layer",
+    abstract: "Accepted after one round.",
+  },
+  blind: {
+    title: "Tangent-cylinder latitude of a thin layer in Mars-sized shells",
+    abstract: "At the double-blind venue: its reviewer sees no author names.",
+  },
+} as const;
+
+export const demoRemarks = {
+  round: {
+    type: "doc",
+    content: [
+      para(text("The comparison in Fig. 3 is the heart of the paper. Please state how "), text("Ro = Re\\,E", "tex"), text(" was measured and over which window.")),
+      items("orderedList", [text("Extend strat-C to at least 1.5 magnetic diffusion times.")], [text("Report "), text("\\mathrm{Pm} = \\nu/\\eta", "tex"), text(" from the material values of strat-B.")]),
+    ],
+  } as Doc,
+  flag: { type: "doc", content: [para(text("I agree with the checker here: with "), text("\\nu/\\eta = 1.25", "tex"), text(" the stated Pm cannot be 2."))] } as Doc,
+  note: { type: "doc", content: [para(text("For the editor: the study is sound once the run lengths are fixed."))] } as Doc,
+};
+
+export const demoLetters = {
+  majorRevision: {
+    type: "doc",
+    content: [
+      { type: "heading", attrs: { level: 2 }, content: [text("What the reviewers ask")] },
+      para(text("Both reviewers find the study "), text("careful", "bold"), text(" but the runs "), text("too short", "italic"), text(" to support the claims about the field.")),
+      items("orderedList", [text("Run strat-C for at least 1.5 magnetic diffusion times.")], [text("Check "), text("N/\\Omega", "tex"), text(" against the layer thickness you quote.")], [text("Answer each remark in round 2.")]),
+    ],
+  } as Doc,
+  accepted: { type: "doc", content: [para(text("Thank you for a clear reference study. "), text("Accepted", "bold"), text(" as it stands."))] } as Doc,
+};

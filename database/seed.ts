@@ -3,7 +3,8 @@ import { and, eq } from "drizzle-orm";
 import { randomUUID } from "node:crypto";
 import { parseEnv, type Env } from "../app/config/env-schema";
 import { createDatabase, type Database } from "./client";
-import { DEMO_PASSWORD, demoPeople, demoSubmission, demoVenue, type DemoKey } from "./demo-data";
+import { DEMO_PASSWORD, demoBlindVenue, demoPeople, demoSubmission, demoVenue, type DemoKey } from "./demo-data";
+import { seedDemoStages } from "./demo-stages";
 import { account, contributors, submissionMembers, submissions, user, venueMembers, venues } from "./schema";
 import { seedDemoRound } from "./seed-round";
 
@@ -68,7 +69,12 @@ export async function seed(db: Database, env: Env = parseEnv(process.env)) {
       );
     }
     const demoRound = await seedDemoRound(tx, env, { submissionId: sub!.id, authorId: ids.author });
-    return { ids, venueId: venue!.id, submissionId: sub!.id, roundId: demoRound.roundId };
+
+    await tx.insert(venues).values(demoBlindVenue).onConflictDoNothing({ target: venues.slug });
+    const [blind] = await tx.select({ id: venues.id }).from(venues).where(eq(venues.slug, demoBlindVenue.slug));
+    await tx.insert(venueMembers).values({ venueId: blind!.id, userId: ids.editor2, role: "editor" }).onConflictDoNothing();
+    const stages = await seedDemoStages(tx, env, ids, { main: venue!.id, blind: blind!.id });
+    return { ids, venueId: venue!.id, blindVenueId: blind!.id, submissionId: sub!.id, roundId: demoRound.roundId, stages };
   });
 }
 
@@ -77,7 +83,7 @@ if (import.meta.url === `file://${process.argv[1]}`) {
   const { db, sql } = createDatabase(env.DATABASE_URL, 1);
   try {
     const out = await seed(db, env);
-    console.log(`demo seeded: venue ${demoVenue.slug}, ${Object.keys(out.ids).length} people, 1 submission`);
+    console.log(`demo seeded: venues ${demoVenue.slug} and ${demoBlindVenue.slug}, ${Object.keys(out.ids).length} people; ${out.stages.length ? `new: ${out.stages.join("; ")}` : "every stage already present"}`);
   } finally {
     await sql.end({ timeout: 5 });
   }

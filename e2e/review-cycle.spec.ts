@@ -74,7 +74,9 @@ async function review(browser: Browser, key: "reviewer1" | "reviewer2", marker: 
   await expect(editor.locator("code.tex")).toHaveText("\\nu/\\eta");
   await page.getByRole("button", { name: "Save remark" }).click();
   await expect(page.getByTestId("my-remarks")).toContainText(`${marker} flag remark`);
-  await expect(page.getByTestId("my-remarks").locator("code.tex")).toHaveText("\\nu/\\eta");
+  // Saved, the formula is typeset by KaTeX (its MathML carries ν and η).
+  await expect(page.getByTestId("my-remarks").locator(".katex").first()).toBeVisible();
+  await expect(page.getByTestId("my-remarks").locator("math").first()).toContainText("ν");
 
   await page.getByTestId("report-form").getByRole("combobox").selectOption("major-revision");
   await writeInEditor(page, "note-editor", `${marker} confidential note for the editor.`);
@@ -120,8 +122,11 @@ test("editor invites two reviewers, both review, the editor decides, the authors
   await writeInEditor(editor, "letter-editor", "Please reconcile the magnetic Prandtl number with the diffusivities.");
   await editor.getByRole("button", { name: "Release decision to the authors" }).click();
   await expect(editor.getByTestId("decision-released")).toContainText("Major revision");
-  await expect(editor.getByTestId("audit-log")).toContainText("decision.released");
-  await expect(editor.getByTestId("audit-log")).toContainText("invitation.accepted");
+  // The audit log in words, never the stored slugs.
+  await expect(editor.getByTestId("audit-log")).toContainText("Decision on round 1 released to the authors");
+  await expect(editor.getByTestId("audit-log")).toContainText(`${demo("reviewer1").email} accepted the invitation to review round 1`);
+  await expect(editor.getByTestId("audit-log")).toContainText("Round 1 sent to the editor");
+  await expect(editor.getByTestId("audit-log")).not.toContainText("decision.released");
 
   const packet = await editor.request.get(`/venues/${fx.venueId}/submissions/${fx.submissionId}/rounds/1/packet.pdf`);
   expect(packet.headers()["content-type"]).toBe("application/pdf");
@@ -137,16 +142,33 @@ test("editor invites two reviewers, both review, the editor decides, the authors
   expect(letterText).toContain("Please reconcile the magnetic Prandtl number");
   expect(letterText).toContain("Reviewer 1");
   expect(letterText).toContain("R2 flag remark");
+  // Formulas print as Unicode maths in the PDF, never as TeX source.
+  expect(letterText).toContain("Pm is ν/η here");
+  expect(letterText).not.toContain("\\nu");
   for (const name of [demo("reviewer1").name, demo("reviewer2").name, "confidential note"]) expect(letterText).not.toContain(name);
 
   const author = await as(browser, "author");
   await author.goto(linkIn(decisionMail, `${ORIGIN}/venues/`));
-  await expect(author.getByRole("heading", { name: /Decision on round 1/ })).toContainText("Major revision");
+  await expect(author.getByRole("heading", { name: "Decision on round 1: Major revision" })).toBeVisible();
   const remarks = author.getByTestId("released-remark");
   await expect(remarks).toHaveCount(4);
   await expect(remarks.first()).toContainText("Reviewer 1");
   await expect(author.getByText("Reviewer 2").first()).toBeVisible();
   await expect(author.locator("body")).not.toContainText(demo("reviewer1").name);
+  // The remark's formula is typeset by KaTeX on the page.
+  await expect(author.locator(".katex").first()).toBeVisible();
+  // What people read carries no TeX source (the hidden MathML annotation keeps it for copying only).
+  const shown = await remarks.evaluateAll((els) =>
+    els
+      .map((e) => {
+        const copy = e.cloneNode(true) as HTMLElement;
+        copy.querySelectorAll("annotation").forEach((a) => a.remove());
+        return copy.textContent ?? "";
+      })
+      .join(" "),
+  );
+  expect(shown).toContain("ν/η");
+  expect(shown).not.toContain("\\nu");
   const first = remarks.first();
   await first.getByRole("textbox").fill("We recomputed Pm from the corrected diffusivity.");
   await first.getByRole("button", { name: "Save answer" }).click();

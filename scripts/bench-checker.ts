@@ -58,3 +58,7 @@ time("50 runs + claim over all + spectra", () => check({
   spectra: Object.fromEntries(many.map((r) => [r.label, spectrum])),
   claim: { format: "runproof.claim/1", title: "b", runs: many.map((r, i) => ({ label: r.label, part: i === 0 ? "reference" : "varied" })), varies: ["controls.Ra"], stated: [{ quantity: "E", value: "1e-3" }] },
 }), 20);
+time("50 runs, scaling statement over all (family K)", () => check({
+  runs: many.map((r, i) => ({ ...r, controls: { ...r.controls, Ra: 1e5 * (1 + i) }, diagnostics: { ...r.diagnostics, Re: 8 * Math.sqrt(1 + i) } })),
+  claim: { format: "runproof.claim/1", title: "s", runs: many.map((r) => ({ label: r.label, part: "varied" })), varies: ["controls.Ra", "diagnostics"], stated: [{ quantity: "Re", scalesWith: "Ra", value: "0.5 ± 0.02" }] },
+}), 20);

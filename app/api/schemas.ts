@@ -66,6 +66,7 @@ export const roundSchema = roundSummarySchema
     runCount: z.number().int(),
     claimCount: z.number().int(),
     flagCounts: flagCountsSchema,
+    checkError: z.string().nullable().describe("why the last check failed; while set, the round's flags are out of date and it cannot be sent"),
   })
   .meta({ id: "Round" });
 

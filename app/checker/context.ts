@@ -44,7 +44,7 @@ export function buildRunContext(
     recomputed,
     given,
     derived,
-    magnetic: run.controls.Pm !== undefined,
+    magnetic: derived.Pm !== undefined,
   };
   if (series) ctx.series = series;
   if (seriesColumns) ctx.seriesColumns = seriesColumns;

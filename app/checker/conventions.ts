@@ -71,8 +71,9 @@ export function fluxGeometryFactor(ls: LengthScale, chi: number): number {
 }
 
 export interface FlavourContext {
-  E: number;
-  Pr: number;
+  /** absent when the record neither gives nor implies it: the flavours that need it are unknown */
+  E?: number | undefined;
+  Pr?: number | undefined;
   /** Nusselt number, needed only for the flux flavour */
   Nu?: number;
   lengthScale: LengthScale;
@@ -85,10 +86,11 @@ export function flavourFactor(flavour: RayleighFlavour, c: FlavourContext): numb
     case "classical":
       return 1;
     case "rotating":
-      return c.E / c.Pr;
+      return c.E === undefined || c.Pr === undefined ? undefined : c.E / c.Pr;
     case "buoyancy":
-      return (c.E * c.E) / c.Pr;
+      return c.E === undefined || c.Pr === undefined ? undefined : (c.E * c.E) / c.Pr;
     case "flux":
+      if (c.E === undefined || c.Pr === undefined) return undefined;
       if (c.Nu === undefined || !(c.Nu > 1)) return undefined;
       return ((c.E ** 3 * (c.Nu - 1)) / (c.Pr * c.Pr)) * fluxGeometryFactor(c.lengthScale, c.chi);
   }

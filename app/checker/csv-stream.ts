@@ -14,9 +14,16 @@ export async function parseCsvStream(chunks: Chunks, kind: CsvKind): Promise<Col
       for await (const c of chunks) {
         if (parser.destroyed) return;
         if (!parser.write(c)) {
+          // Wait for drain or close, then remove both listeners: one left behind per
+          // drain would pile up on a long file (MaxListenersExceededWarning).
           await new Promise<void>((res) => {
-            parser.once("drain", res);
-            parser.once("close", res);
+            const done = () => {
+              parser.off("drain", done);
+              parser.off("close", done);
+              res();
+            };
+            parser.on("drain", done);
+            parser.on("close", done);
           });
         }
       }

@@ -36,21 +36,31 @@ export class ColumnBuilder {
     if (record.length !== this.names.length) {
       throw new CsvFormatError(`expected ${this.names.length} values (${this.names.join(", ")}), found ${record.length}`, line);
     }
-    record.forEach((cell, i) => {
-      const name = this.names[i] ?? "";
-      if (cell === "") throw new CsvFormatError(`column ${name} is empty`, line);
+    for (let i = 0; i < record.length; i++) {
+      const cell = record[i] as string;
+      if (cell === "") throw new CsvFormatError(`column ${this.names[i] ?? ""} is empty`, line);
       const v = Number(cell);
-      if (!Number.isFinite(v)) throw new CsvFormatError(`column ${name} is not a number ('${cell}')`, line);
-      const col = this.cols[i] as number[];
-      if (i === 0 && col.length > 0 && !(v > (col[col.length - 1] ?? 0))) {
-        throw new CsvFormatError(`column ${name} must increase (${cell} after ${col[col.length - 1]})`, line);
-      }
-      if (this.kind === "spectrum" && i === 0 && !(Number.isInteger(v) && v >= 0)) {
-        throw new CsvFormatError(`column l must hold non-negative integer degrees ('${cell}')`, line);
-      }
-      if (this.kind === "spectrum" && i > 0 && v < 0) throw new CsvFormatError(`column ${name} has a negative energy ('${cell}')`, line);
-      col.push(v);
-    });
+      if (!Number.isFinite(v)) throw new CsvFormatError(`column ${this.names[i] ?? ""} is not a number ('${cell}')`, line);
+      this.push(i, v, cell, line);
+    }
+  }
+
+  /** A row already read as numbers (e.g. Fortran columns), checked like a CSV row. */
+  addNumbers(values: number[], cells: string[], line: number): void {
+    for (let i = 0; i < values.length; i++) this.push(i, values[i] as number, cells[i] ?? "", line);
+  }
+
+  private push(i: number, v: number, cell: string, line: number): void {
+    const name = this.names[i] ?? "";
+    const col = this.cols[i] as number[];
+    if (i === 0 && col.length > 0 && !(v > (col[col.length - 1] ?? 0))) {
+      throw new CsvFormatError(`column ${name} must increase (${cell} after ${col[col.length - 1]})`, line);
+    }
+    if (this.kind === "spectrum" && i === 0 && !(Number.isInteger(v) && v >= 0)) {
+      throw new CsvFormatError(`column l must hold non-negative integer degrees ('${cell}')`, line);
+    }
+    if (this.kind === "spectrum" && i > 0 && v < 0) throw new CsvFormatError(`column ${name} has a negative energy ('${cell}')`, line);
+    col.push(v);
   }
 
   private header(record: string[], line: number): void {

@@ -10,7 +10,7 @@ import type { Policy } from "./policy.ts";
 import type { RunRecord } from "./schema.ts";
 import type { SeriesStats } from "./series.ts";
 import { convertDuration } from "./timeunits.ts";
-import { isNum, type Derived } from "./types.ts";
+import { isNum, type Derived, type SeriesSummary } from "./types.ts";
 import { layerGeometry } from "./geometry.ts";
 
 export const GIVEN_KEYS = ["Re", "Rm", "Ro", "Rol", "Lo", "Lambda", "kineticEnergy", "magneticEnergy", "Nu", "dipolarity"] as const;
@@ -51,22 +51,22 @@ export function derive(run: RunRecord, rec: Recomputed, given: Given, series: Se
   put(d, "Pr", rec.Pr);
   put(d, "Pm", c.Pm);
   put(d, "Pm", rec.Pm);
-  if (c.Pm !== undefined) put(d, "q", c.Pm / c.Pr);
+  if (c.Pm !== undefined && c.Pr !== undefined) put(d, "q", c.Pm / c.Pr);
   put(d, "q", rec.q);
   if (d.Pm !== undefined && d.Pr !== undefined) put(d, "q", d.Pm / d.Pr);
   put(d, "chi", chi);
 
-  const fc: FlavourContext = { E: c.E, Pr: c.Pr, lengthScale: run.conventions.lengthScale, chi, ...(given.Nu !== undefined ? { Nu: given.Nu } : {}) };
-  put(d, "Ra", toClassical(c.Ra, run.conventions.rayleigh, fc));
+  const fc: FlavourContext = { E: d.E, Pr: d.Pr, lengthScale: run.conventions.lengthScale, chi, ...(given.Nu !== undefined ? { Nu: given.Nu } : {}) };
+  if (c.Ra !== undefined) put(d, "Ra", toClassical(c.Ra, run.conventions.rayleigh, fc));
   put(d, "Ra", rec.Ra);
   if (d.Ra !== undefined) {
     put(d, "RaRotating", fromClassical(d.Ra, "rotating", fc));
     put(d, "RaBuoyancy", fromClassical(d.Ra, "buoyancy", fc));
   }
-  if (run.conventions.rayleigh === "flux") put(d, "RaFlux", c.Ra);
+  if (run.conventions.rayleigh === "flux" && c.Ra !== undefined) put(d, "RaFlux", c.Ra);
   else if (d.Ra !== undefined) put(d, "RaFlux", fromClassical(d.Ra, "flux", fc));
   put(d, "RaFlux", rec.RaFlux);
-  if (d.Pm !== undefined) put(d, "Emag_ekman", c.E / d.Pm);
+  if (d.Pm !== undefined && d.E !== undefined) put(d, "Emag_ekman", d.E / d.Pm);
 
   fillIdentities(d, run, given);
   put(d, "NOverOmega", run.stableLayer?.NOverOmega);
@@ -92,14 +92,26 @@ export function derive(run: RunRecord, rec: Recomputed, given: Given, series: Se
     if (w.magnetic !== undefined) aw.magnetic = w.magnetic;
     if (w.overturns !== undefined) aw.overturns = w.overturns;
     if (Object.keys(aw).length > 0) d.averagingWindow = aw;
+    d.series = seriesSummary(series);
   }
   return ordered(d);
 }
 
 const ORDER: Array<keyof Derived> = [
   "E", "Ra", "RaRotating", "RaBuoyancy", "RaFlux", "Pr", "Pm", "q", "chi", "Emag_ekman", "Re", "Rm", "Ro", "Rol", "Lo",
-  "Lambda", "NOverOmega", "tangentCylinderLatitudeDeg", "layerThicknessKm", "layerTangentLatitudeDeg", "runLength", "averagingWindow",
+  "Lambda", "NOverOmega", "tangentCylinderLatitudeDeg", "layerThicknessKm", "layerTangentLatitudeDeg", "runLength", "averagingWindow", "series",
 ];
+
+/** derived.series: one entry per column of the attached series (computed once, in series.ts). */
+export function seriesSummary(s: SeriesStats): Record<string, SeriesSummary> {
+  const out: Record<string, SeriesSummary> = {};
+  for (const c of Object.values(s.columns)) {
+    const e: SeriesSummary = { mean: c.mean, stderr: c.standardError, tauInt: c.tau, effectiveSamples: c.ess, transientEnd: c.truncationTime };
+    if (Number.isFinite(c.z)) e.z = c.z;
+    out[c.column] = e;
+  }
+  return out;
+}
 
 /** Same keys in the contract's order. */
 function ordered(d: Derived): Derived {

@@ -16,6 +16,7 @@ import { checkComparison } from "./rules/g-comparison.ts";
 import { checkGeometry } from "./rules/h-geometry.ts";
 import { checkRegime } from "./rules/i-regime.ts";
 import { checkBenchmark } from "./rules/j-benchmark.ts";
+import { checkRatioScaling } from "./rules/k-ratio-scaling.ts";
 import type { CheckInput } from "./schema.ts";
 import type { CheckOutput, Flag } from "./types.ts";
 import { parseCheckInput } from "./validate.ts";
@@ -70,7 +71,7 @@ export function checkParsed(input: CheckInput): CheckOutput {
   let claimFlags: Flag[] = [];
   if (input.claim) {
     const cc: ClaimContext = { claim: input.claim, runs: new Map(contexts.map((c) => [c.label, c])), policy };
-    claimFlags = [...checkComparison(cc), ...checkStated(cc)];
+    claimFlags = [...checkComparison(cc), ...checkStated(cc), ...checkRatioScaling(cc)];
   }
   return { runs, claimFlags };
 }

@@ -2,23 +2,7 @@
 import type { RunContext } from "./context.ts";
 import { fromClassical } from "./conventions.ts";
 
-export const DERIVED_KEYS = [
-  "E", "Ra", "RaRotating", "RaBuoyancy", "RaFlux", "Pr", "Pm", "q", "chi", "Emag_ekman", "Re", "Rm", "Ro",
-  "Rol", "Lo", "Lambda", "NOverOmega", "tangentCylinderLatitudeDeg", "layerTangentLatitudeDeg", "layerThicknessKm",
-  "runLength.viscous", "runLength.magnetic", "runLength.thermal", "runLength.rotations", "runLength.overturns",
-  "averagingWindow.magnetic", "averagingWindow.overturns",
-] as const;
-
-export const DIAGNOSTIC_KEYS = [
-  "kineticEnergy", "magneticEnergy", "dipolarity", "ohmicFraction", "Nu",
-  "driftFrequency", "pointTemperature", "pointUphi", "pointBtheta",
-] as const;
-
-export const STATABLE: readonly string[] = [...DERIVED_KEYS, ...DIAGNOSTIC_KEYS];
-
-export function isStatable(q: string): boolean {
-  return STATABLE.includes(q);
-}
+export { DERIVED_KEYS, DIAGNOSTIC_KEYS, STATABLE, isStatable } from "./quantity-keys.ts";
 
 /**
  * The value a stated quantity is checked against. `Ra` (a controls key) means the
@@ -26,7 +10,7 @@ export function isStatable(q: string): boolean {
  * `RaBuoyancy`, `RaFlux` name a flavour explicitly.
  */
 export function lookup(ctx: RunContext, q: string): number | undefined {
-  if (q === "Ra") return ctx.run.controls.Ra;
+  if (q === "Ra") return ctx.run.controls.Ra ?? flavoured(ctx, ctx.derived.Ra);
   const [head, tail] = q.split(".") as [string, string | undefined];
   const d = ctx.derived as Record<string, unknown>;
   if (tail !== undefined) {
@@ -45,15 +29,19 @@ export function lookupMaterial(ctx: RunContext, q: string): number | undefined {
   switch (q) {
     case "E": case "Pr": case "Pm": case "q": case "RaFlux":
       return r[q];
-    case "Ra": {
+    case "Ra":
       if (r.Ra === undefined) return ctx.run.conventions.rayleigh === "flux" ? r.RaFlux : undefined;
-      const c = ctx.run.controls;
-      return fromClassical(r.Ra, ctx.run.conventions.rayleigh, {
-        E: c.E, Pr: c.Pr, lengthScale: ctx.run.conventions.lengthScale, chi: ctx.run.geometry.radiusRatio,
-        ...(ctx.given.Nu !== undefined ? { Nu: ctx.given.Nu } : {}),
-      });
-    }
+      return flavoured(ctx, r.Ra);
     default:
       return undefined;
   }
+}
+
+/** A classical Rayleigh number in the run's declared flavour. */
+function flavoured(ctx: RunContext, classical: number | undefined): number | undefined {
+  if (classical === undefined) return undefined;
+  return fromClassical(classical, ctx.run.conventions.rayleigh, {
+    E: ctx.derived.E, Pr: ctx.derived.Pr, lengthScale: ctx.run.conventions.lengthScale, chi: ctx.run.geometry.radiusRatio,
+    ...(ctx.given.Nu !== undefined ? { Nu: ctx.given.Nu } : {}),
+  });
 }

@@ -10,6 +10,7 @@ import { RULES_G } from "./rules/g-comparison.ts";
 import { RULES_H } from "./rules/h-geometry.ts";
 import { RULES_I } from "./rules/i-regime.ts";
 import { RULES_J } from "./rules/j-benchmark.ts";
+import { RULES_K } from "./rules/k-ratio-scaling.ts";
 import type { Family, RuleInfo } from "./types.ts";
 
 export interface RuleEntry extends RuleInfo {
@@ -28,9 +29,10 @@ export const FAMILIES: Record<Family, string> = {
   H: "Geometry",
   I: "Regime notes",
   J: "Benchmarks",
+  K: "Ratio and scaling statements",
 };
 
-const all: RuleInfo[] = [RULES_A, RULES_B, RULES_C, RULES_D, RULES_E, RULES_F, RULES_G, RULES_H, RULES_I, RULES_J]
+const all: RuleInfo[] = [RULES_A, RULES_B, RULES_C, RULES_D, RULES_E, RULES_F, RULES_G, RULES_H, RULES_I, RULES_J, RULES_K]
   .flatMap((group) => Object.values(group) as RuleInfo[]);
 
 export const rules: RuleEntry[] = all

@@ -5,6 +5,10 @@
  */
 import * as z from "zod";
 import { policySchema } from "./policy.ts";
+import { isStatable, suggestQuantity } from "./quantity-keys.ts";
+
+export { suggestQuantity };
+import { parseStated, StatedValueError } from "./stated.ts";
 
 /**
  * Plausible ranges of the formats' sizes: every count that sets how much work a check does has a
@@ -78,9 +82,11 @@ export const runSchema = z
       })
       .strict(),
     controls: z
-      .object({ E: pos(), Ra: pos(), Pr: pos(), Pm: pos().optional() })
+      .object({ E: pos(), Ra: pos(), Pr: pos(), Pm: pos() })
+      .partial()
       .strict()
-      .describe("control numbers as configured, in the declared conventions; Pm absent for a non-magnetic run"),
+      .refine((c) => Object.keys(c).length > 0, { message: "controls needs at least one control number (E, Ra, Pr or Pm); the others may follow from material" })
+      .describe("control numbers as configured, in the declared conventions; each optional (a missing one is recomputed from material when it can be); Pm absent for a non-magnetic run"),
     material: materialSchema.optional(),
     boundaries: z.object({ inner: boundarySide, outer: boundarySide }).partial().strict().optional(),
     stableLayer: z
@@ -128,26 +134,82 @@ export const runSchema = z
 
 export type RunRecord = z.infer<typeof runSchema>;
 
-export const claimSchema = z
+const quantity = (what: string) =>
+  z
+    .string()
+    .min(1)
+    .refine(isStatable, {
+      error: (iss) => {
+        const typed = String(iss.input);
+        const hint = suggestQuantity(typed);
+        return `unknown quantity "${typed.slice(0, 60)}"${hint ? ` (did you mean "${hint}"?)` : ""}; use a key of derived such as Rm, Lambda or runLength.magnetic, or a controls key (the list is on the checks help page)`;
+      },
+    })
+    .describe(what);
+
+const statedRow = z
   .object({
-    format: z.literal("runproof.claim/1"),
-    title: z.string().max(LIMITS.longText),
-    runs: z.array(z.object({ label: text("run label"), part: text("part, e.g. reference or varied") }).strict()).min(1).max(LIMITS.runs),
-    varies: z.array(z.string().min(1).max(LIMITS.shortText)).max(100).optional().describe("dotted paths of the run record that may differ"),
-    stated: z
-      .array(
-        z
-          .object({
-            quantity: text("a key of derived (dotted for nested ones) or a controls key"),
-            value: z.union([z.string().min(1).max(LIMITS.longText), z.number()]),
-            run: z.string().min(1).max(LIMITS.shortText).optional(),
-          })
-          .strict(),
-      )
-      .max(1000)
-      .optional(),
+    quantity: quantity("a key of derived (dotted for nested ones) or a controls key"),
+    value: z.union([z.string().min(1).max(200), z.number()]),
+    run: z.string().min(1).optional().describe("the run the value applies to; absent: every run of the claim"),
+    ratio: z.tuple([z.string().min(1), z.string().min(1)]).optional().describe("two run labels: the value is quantity(first) / quantity(second)"),
+    scalesWith: quantity("x quantity of a power law y ∝ x^b over the claim's runs; the value states the exponent b").optional(),
   })
   .strict();
+
+const claimObject = z
+  .object({
+    format: z.literal("runproof.claim/1"),
+    title: z.string().max(500),
+    runs: z.array(z.object({ label: text("run label"), part: text("part, e.g. reference or varied") }).strict()).min(1).max(200),
+    varies: z.array(z.string().min(1).max(200)).max(100).optional().describe("dotted paths of the run record that may differ"),
+    stated: z.array(statedRow).max(500).optional(),
+  })
+  .strict();
+
+const RUN_TOP_KEYS = () => Object.keys(runSchema.shape).filter((k) => k !== "format" && k !== "label");
+
+/**
+ * The claim format with its cross-field rules, shared by the claim form, the API and the
+ * checker's input: an unknown quantity, an unreadable value or a run outside the claim is
+ * refused here, with the path of the row, before anything is stored.
+ */
+export const claimSchema = claimObject.superRefine((claim, ctx) => {
+  const labels = new Set<string>();
+  claim.runs.forEach((r, i) => {
+    if (labels.has(r.label)) ctx.addIssue({ code: "custom", path: ["runs", i, "label"], message: `run "${r.label}" is listed twice; list each run once` });
+    labels.add(r.label);
+  });
+  const known = [...labels].join(", ");
+  (claim.varies ?? []).forEach((p, i) => {
+    const head = p.split(".")[0] ?? "";
+    if (!RUN_TOP_KEYS().includes(head)) {
+      ctx.addIssue({ code: "custom", path: ["varies", i], message: `"${p}" is not a path of the run record; start it with one of ${RUN_TOP_KEYS().join(", ")}` });
+    }
+  });
+  (claim.stated ?? []).forEach((row, i) => {
+    try {
+      parseStated(row.value);
+    } catch (e) {
+      if (!(e instanceof StatedValueError)) throw e;
+      ctx.addIssue({ code: "custom", path: ["stated", i, "value"], message: e.message });
+    }
+    const kinds = [row.run !== undefined, row.ratio !== undefined, row.scalesWith !== undefined].filter(Boolean).length;
+    if (kinds > 1) ctx.addIssue({ code: "custom", path: ["stated", i], message: "a stated value has at most one of run, ratio and scalesWith; split it into separate rows" });
+    if (row.run !== undefined && !labels.has(row.run)) {
+      ctx.addIssue({ code: "custom", path: ["stated", i, "run"], message: `run "${row.run}" is not among the claim's runs (${known}); add it to the claim's runs or pick one of them` });
+    }
+    if (row.ratio) {
+      row.ratio.forEach((l, j) => {
+        if (!labels.has(l)) ctx.addIssue({ code: "custom", path: ["stated", i, "ratio", j], message: `run "${l}" is not among the claim's runs (${known})` });
+      });
+      if (row.ratio[0] === row.ratio[1]) ctx.addIssue({ code: "custom", path: ["stated", i, "ratio"], message: "a ratio needs two different runs" });
+    }
+    if (row.scalesWith !== undefined && row.scalesWith === row.quantity) {
+      ctx.addIssue({ code: "custom", path: ["stated", i, "scalesWith"], message: "a quantity cannot scale with itself; name another quantity as x" });
+    }
+  });
+});
 
 export type ClaimRecord = z.infer<typeof claimSchema>;
 

@@ -1,9 +1,10 @@
 /**
  * Stated values (family B): a claim's text such as "3.0e-5", "≈ 360", "≥ 1.5",
- * "1–2", "3 × 10^-5", "~1e4" read as an interval that honours the stated precision.
+ * "1–2", "3 × 10^-5", "~1e4", "0.41 ± 0.03" read as an interval that honours the stated precision.
  */
+import { formatNumber } from "./types.ts";
 
-export type StatedKind = "value" | "approx" | "order" | "lt" | "le" | "gt" | "ge" | "range";
+export type StatedKind = "value" | "approx" | "order" | "lt" | "le" | "gt" | "ge" | "range" | "plusminus";
 
 export interface Interval {
   kind: StatedKind;
@@ -85,6 +86,13 @@ export function parseStated(input: string | number): Interval {
       break;
     }
   }
+  const pm = /^(.+?)\s*(?:±|\+\/-|\+-)\s*(.+)$/.exec(s);
+  if (pm && kind === "value") {
+    const a = parseNumber(pm[1] ?? "", text);
+    const b = parseNumber(pm[2] ?? "", text);
+    if (!(b.value >= 0)) throw new StatedValueError(`"${text}": the uncertainty after ± must not be negative`);
+    return { kind: "plusminus", text, lo: a.value - b.value, hi: a.value + b.value, loInclusive: true, hiInclusive: true, nominal: a.value };
+  }
   const range = /^(.+?)\s*(?:–|\bto\b|(?<=[\d.])\s*-\s*(?=[+-]?[\d.]))\s*(.+)$/.exec(s);
   if (range && kind === "value" && !/[eE^]$/.test(range[1] ?? "")) {
     const a = parseNumber(range[1] ?? "", text);
@@ -131,12 +139,8 @@ export function overlaps(iv: Interval, a: number, b: number): boolean {
   return contains(iv, a) || contains(iv, b) || (a <= iv.lo && b >= iv.hi);
 }
 
-function g(x: number): string {
-  if (!Number.isFinite(x)) return String(x);
-  const a = Math.abs(x);
-  if (a !== 0 && (a < 1e-3 || a >= 1e6)) return Number(x.toPrecision(6)).toExponential().replace(/e\+/, "e");
-  return String(Number(x.toPrecision(6)));
-}
+/** Interval ends keep two more digits than messages' numbers, so a stated digit is never rounded away. */
+const g = (x: number) => formatNumber(x, 6);
 
 /** Human description, e.g. `"3.0e-5" = [2.95e-5, 3.05e-5)`. */
 export function describe(iv: Interval): string {

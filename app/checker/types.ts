@@ -2,7 +2,7 @@
 
 export type Severity = "mismatch" | "caution" | "note";
 
-export type Family = "A" | "B" | "C" | "D" | "E" | "F" | "G" | "H" | "I" | "J";
+export type Family = "A" | "B" | "C" | "D" | "E" | "F" | "G" | "H" | "I" | "J" | "K";
 
 /** One finding of the checker. */
 export interface Flag {
@@ -48,6 +48,21 @@ export interface AveragingWindow {
   overturns?: number;
 }
 
+/** Statistics of one column of an attached time series (contract: derived.series). */
+export interface SeriesSummary {
+  /** mean after the transient */
+  mean: number;
+  /** batch-means standard error of that mean */
+  stderr: number;
+  /** integrated autocorrelation time, in samples */
+  tauInt: number;
+  effectiveSamples: number;
+  /** end of the initial transient (MSER-5), in the run's time unit */
+  transientEnd: number;
+  /** two-halves z score; absent when it is not finite (a constant column) */
+  z?: number;
+}
+
 /** The contract's `derived` object: every key absent when it cannot be known. */
 export interface Derived {
   E?: number;
@@ -72,6 +87,7 @@ export interface Derived {
   layerTangentLatitudeDeg?: number;
   runLength?: RunLength;
   averagingWindow?: AveragingWindow;
+  series?: Record<string, SeriesSummary>;
 }
 
 export interface RunResult {
@@ -103,13 +119,27 @@ export function relDiff(found: number, expected: number): number {
   return d === 0 ? Infinity : Math.abs(found - expected) / d;
 }
 
-/** Compact number formatting for messages. */
-export function fmt(x: number): string {
+/**
+ * The one number format of messages: `digits` significant figures, plain between 1e-3 and
+ * 1e5, otherwise as 1.235e-5 (no "+", no trailing zeros), so two numbers of a message
+ * always read alike.
+ */
+export function formatNumber(x: number, digits: number): string {
   if (!Number.isFinite(x)) return String(x);
   if (x === 0) return "0";
   const a = Math.abs(x);
-  if (a >= 1e-3 && a < 1e5) return String(Number(x.toPrecision(4)));
-  return x.toExponential(3).replace(/\.?0+e/, "e");
+  if (a >= 1e-3 && a < 1e5) return String(Number(x.toPrecision(digits)));
+  return x.toExponential(digits - 1).replace(/\.?0+e/, "e").replace("e+", "e");
+}
+
+/** Numbers in messages: 4 significant figures. */
+export function fmt(x: number): string {
+  return formatNumber(x, 4);
+}
+
+/** A relative tolerance as people read it: 0.02 → "2 % relative". */
+export function relativeTolerance(t: number): string {
+  return `${fmt(100 * t)} % relative`;
 }
 
 export function isNum(x: unknown): x is number {

@@ -1,13 +1,9 @@
 /** Parse and validate a check input: schema, then cross-field checks with JSON paths. */
 import { materialToSI } from "./material.ts";
 import { formatPath, zodErrors, type InputError } from "./paths.ts";
-import { isStatable, STATABLE } from "./quantities.ts";
-import { checkInputSchema, runSchema, type CheckInput, type Columns } from "./schema.ts";
-import { parseStated, StatedValueError } from "./stated.ts";
+import { checkInputSchema, type CheckInput, type Columns } from "./schema.ts";
 
 export type ParseResult = { ok: true; value: CheckInput } | { ok: false; errors: InputError[] };
-
-const RUN_TOP_KEYS = Object.keys(runSchema.shape);
 
 /** Accept a single run record or `{ runs, claim?, policy?, series?, spectra? }`. */
 export function parseCheckInput(input: unknown): ParseResult {
@@ -38,7 +34,6 @@ function crossChecks(v: CheckInput): InputError[] {
       errors.push(...columnChecks(cols, first, where));
     }
   }
-  if (v.claim) errors.push(...claimChecks(v.claim));
   return errors;
 }
 
@@ -63,31 +58,5 @@ function columnChecks(cols: Columns, first: "t" | "l", where: string): InputErro
     }
   }
   if (first === "l" && x.some((l) => !Number.isInteger(l) || l < 0)) errors.push({ path: `${where}.l`, message: "degrees l must be non-negative integers" });
-  return errors;
-}
-
-function claimChecks(claim: NonNullable<CheckInput["claim"]>): InputError[] {
-  const errors: InputError[] = [];
-  const claimLabels = new Set(claim.runs.map((r) => r.label));
-  (claim.varies ?? []).forEach((p, i) => {
-    const head = p.split(".")[0] ?? "";
-    if (!RUN_TOP_KEYS.includes(head) || ["format", "label"].includes(head)) {
-      errors.push({ path: `claim.varies[${i}]`, message: `"${p}" is not a path of the run record; start it with one of ${RUN_TOP_KEYS.filter((k) => k !== "format" && k !== "label").join(", ")}` });
-    }
-  });
-  (claim.stated ?? []).forEach((row, i) => {
-    if (!isStatable(row.quantity)) {
-      errors.push({ path: `claim.stated[${i}].quantity`, message: `unknown quantity "${row.quantity}"; use one of ${STATABLE.join(", ")}` });
-    }
-    try {
-      parseStated(row.value);
-    } catch (e) {
-      if (!(e instanceof StatedValueError)) throw e;
-      errors.push({ path: `claim.stated[${i}].value`, message: e.message });
-    }
-    if (row.run !== undefined && !claimLabels.has(row.run)) {
-      errors.push({ path: `claim.stated[${i}].run`, message: `run "${row.run}" is not among the claim's runs (${[...claimLabels].join(", ")})` });
-    }
-  });
   return errors;
 }

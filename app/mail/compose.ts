@@ -4,6 +4,17 @@ export type Composed = { subject: string; text: string; html: string };
 const escapeHtml = (s: string) =>
   s.replace(/[&<>"']/g, (c) => ({ "&": "&amp;", "<": "&lt;", ">": "&gt;", '"': "&quot;", "'": "&#39;" })[c]!);
 
+/** A paragraph: plain text, or a pre-rendered rich block (sanitised HTML with its text twin). */
+export type MailBlock = string | { html: string; text: string };
+
+const paragraphHtml = (p: MailBlock) =>
+  typeof p === "string"
+    ? p
+        .split(/\n{2,}/)
+        .map((para) => `<p>${escapeHtml(para).replace(/\n/g, "<br>")}</p>`)
+        .join("\n")
+    : `<div>${p.html}</div>`;
+
 /**
  * Builds a plain message: a greeting, paragraphs, one optional button link.
  * Text and HTML come from the same pieces so they never say different things.
@@ -11,7 +22,7 @@ const escapeHtml = (s: string) =>
 export function compose(opts: {
   subject: string;
   greeting: string;
-  paragraphs: string[];
+  paragraphs: MailBlock[];
   action?: { label: string; url: string };
   footer?: string;
 }): Composed {
@@ -19,7 +30,7 @@ export function compose(opts: {
   const text = [
     opts.greeting,
     "",
-    ...opts.paragraphs.flatMap((p) => [p, ""]),
+    ...opts.paragraphs.flatMap((p) => [typeof p === "string" ? p : p.text, ""]),
     ...(opts.action ? [`${opts.action.label}: ${opts.action.url}`, ""] : []),
     "--",
     footer,
@@ -29,7 +40,7 @@ export function compose(opts: {
     : "";
   const html = `<!doctype html><html><body style="font-family:Georgia,serif;color:#1d2330;line-height:1.5">
 <p>${escapeHtml(opts.greeting)}</p>
-${opts.paragraphs.map((p) => `<p>${escapeHtml(p)}</p>`).join("\n")}
+${opts.paragraphs.map(paragraphHtml).join("\n")}
 ${button}
 <hr style="border:none;border-top:1px solid #d8d3c6"><p style="font-size:12px;color:#5b6170">${escapeHtml(footer)}</p>
 </body></html>`;

@@ -14,7 +14,8 @@ import { letterFor } from "./documents.server";
 import { OPEN_STATES } from "./invitations.server";
 import { releasedRemarks } from "./remarks.server";
 import { openRevisionRound } from "./revision.server";
-import { docText } from "./tiptap/extensions";
+import { decisionLabel } from "./labels";
+import { richMailPart } from "./tiptap/render.server";
 
 type Decision = "accept" | "minor-revision" | "major-revision" | "reject";
 const CONFLICT = "Another editor changed this decision while you were writing (or released it already). Reload the page to see the current state; your letter was not saved.";
@@ -65,9 +66,9 @@ export async function releaseDecision(db: Database, opts: { roundId: string; dec
           subject: `Decision on round ${round.number}: ${ctx.submission.title}`,
           greeting: `Hello ${person.name},`,
           paragraphs: [
-            `The editor of ${ctx.venue.name} decided on round ${round.number}: ${opts.decision.replace("-", " ")}.`,
-            docText(opts.letter),
-            ...remarks.map((r) => `${r.reviewer}, on ${r.anchor}: ${docText(r.body)}`),
+            `The editor of ${ctx.venue.name} decided on round ${round.number}: ${decisionLabel(opts.decision)}.`,
+            richMailPart(opts.letter),
+            ...remarks.flatMap((r) => [`${r.reviewer}, on ${r.anchor}:`, richMailPart(r.body)]),
             ...(next ? [`Round ${next.number} is open for your revision, prefilled from round ${round.number}; answer each remark there.`] : []),
             "The decision letter with the remarks is attached as a PDF.",
           ],

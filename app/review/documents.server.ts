@@ -1,7 +1,9 @@
 import { asc, eq } from "drizzle-orm";
 import { contributors, flags } from "~db/schema";
-import { roundClaims } from "~/workspace/claims.server";
-import { roundRunList } from "~/workspace/runs.server";
+import type { Database } from "~db/client";
+import { check } from "~/checker";
+import type { Derived } from "~/checker/types";
+import { loadRoundInputs } from "~/workspace/recheck.server";
 import type { Db } from "~/workspace/types";
 import type { RoundContext } from "./context.server";
 import { decisionLetterPdf } from "./pdf/letter.server";
@@ -15,22 +17,27 @@ export async function roundFlags(db: Db, roundId: string) {
 
 /** The packet of a round; a double-blind venue's packet carries no author names. */
 export async function packetFor(db: Db, ctx: RoundContext) {
-  const [claimRows, runRows, flagRows, people] = await Promise.all([
-    roundClaims(db, ctx.round.id),
-    roundRunList(db as never, ctx.round.id),
+  const [inputs, flagRows, people] = await Promise.all([
+    loadRoundInputs(db as Database, ctx.round.id),
     roundFlags(db, ctx.round.id),
     // The contributor list as the round was sent; the live list only for a round never sent.
     ctx.round.sentContributors ??
       db.select({ name: contributors.name, affiliation: contributors.affiliation }).from(contributors).where(eq(contributors.submissionId, ctx.submission.id)).orderBy(asc(contributors.position)),
   ]);
+  const derived = new Map<string, Derived>();
+  try {
+    if (inputs.runs.length) for (const r of check({ runs: inputs.runs, series: inputs.series, spectra: inputs.spectra, policy: inputs.policy as never }).runs) derived.set(r.label, r.derived);
+  } catch {
+    // Stored records were validated on the way in; a checker upgrade that rejects one leaves the recomputed values out.
+  }
   const authors = ctx.venue.blinding === "double" || !people.length ? null : people.map((p) => `${p.name}${p.affiliation ? ` (${p.affiliation})` : ""}`).join("; ");
   return reviewerPacketPdf({
     venueName: ctx.venue.name,
     title: ctx.submission.title,
     authors,
     roundNumber: ctx.round.number,
-    claims: claimRows,
-    runs: runRows.map((r) => ({ label: r.label, version: r.version, record: r.record })),
+    claims: inputs.claims,
+    runs: inputs.runRows.map((r) => ({ label: r.label, version: r.version, record: r.record, derived: derived.get(r.label) })),
     flags: flagRows,
   });
 }

@@ -1,5 +1,6 @@
 import { z } from "zod";
 import { findBadText } from "~/lib/edge-input";
+import { OUTCOME_CHOICES } from "./labels";
 
 /** Shared (client and server) schemas of the review cycle's forms. */
 const jsonDoc = z
@@ -60,9 +61,5 @@ export const responseSchema = z.object({
   response: z.string().trim().min(1, "Write your answer to the remark.").max(20_000),
 });
 
-export const RECOMMENDATIONS = [
-  { value: "accept", label: "Accept" },
-  { value: "minor-revision", label: "Minor revision" },
-  { value: "major-revision", label: "Major revision" },
-  { value: "reject", label: "Reject" },
-] as const;
+/** The decision and recommendation choices, worded by the one labels module. */
+export const RECOMMENDATIONS = OUTCOME_CHOICES;

@@ -9,6 +9,7 @@ import { enqueueMail } from "~/mail/outbox.server";
 import { audit } from "~/workspace/audit.server";
 import { InvalidInput, StateConflict, type Db } from "~/workspace/types";
 import { roundContext, venueEditors } from "./context.server";
+import { recommendationLabel } from "./labels";
 import type { RemarkInput } from "./forms";
 import { isEmptyDoc } from "./tiptap/extensions";
 
@@ -95,7 +96,7 @@ export async function submitReview(db: Database, review: typeof reviews.$inferSe
         compose({
           subject: `Review submitted: ${ctx.submission.title}`,
           greeting: `Hello ${editor.name},`,
-          paragraphs: [`Reviewer ${review.number} submitted a report on round ${ctx.round.number} of "${ctx.submission.title}" (recommendation: ${review.recommendation}).`],
+          paragraphs: [`Reviewer ${review.number} submitted a report on round ${ctx.round.number} of "${ctx.submission.title}" (recommendation: ${recommendationLabel(review.recommendation).toLowerCase()}).`],
           action: { label: "Read the reports", url: absoluteUrl(href("/venues/:venueId/submissions/:submissionId/rounds/:round/desk", { venueId: ctx.venue.id, submissionId: ctx.submission.id, round: String(ctx.round.number) })) },
         }),
         { dedupeKey: `review-submitted:${review.id}:${editor.email}` },

@@ -3,8 +3,8 @@ import { requireUser } from "~/access/session.server";
 import { openVenues } from "~/workspace/submissions.server";
 import { dashboardFor, type DashboardItem } from "~/dashboard/queries.server";
 import { myDecisions, myInvitations, myReviews } from "~/review/dashboard.server";
-import { decisionLabel } from "~/review/states";
 import type { Route } from "./+types/dashboard";
+import { decisionLabel, submissionStageLabel } from "~/review/labels";
 
 export const meta: Route.MetaFunction = () => [{ title: "What needs me · Runproof" }];
 
@@ -19,14 +19,6 @@ export async function loader(args: Route.LoaderArgs) {
   ]);
   return { name: user.name, admin: user.role === "admin", ...lists, reviews, venuesOpen, decisions, invited };
 }
-
-const stageLabel: Record<string, string> = {
-  draft: "draft, not yet sent",
-  "with-editor": "waiting for the editor",
-  "in-review": "with reviewers",
-  decided: "decided",
-  withdrawn: "withdrawn",
-};
 
 function Section({ title, items, empty, testId }: { title: string; items: DashboardItem[]; empty: string; testId: string }) {
   return (
@@ -44,7 +36,7 @@ function Section({ title, items, empty, testId }: { title: string; items: Dashbo
                 {s.title}
               </Link>
               <span className="ml-2 text-caption text-basalt-soft">
-                {s.venueName} · {stageLabel[s.stage] ?? s.stage}
+                {s.venueName} · {submissionStageLabel(s.stage)}
               </span>
             </li>
           ))}

@@ -6,6 +6,8 @@ export type AuditAction =
   | "round.sent"
   | "round.opened"
   | "reviewer.invited"
+  | "invitation.resent"
+  | "invitation.withdrawn"
   | "invitation.accepted"
   | "invitation.declined"
   | "review.submitted"

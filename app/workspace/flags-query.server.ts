@@ -2,14 +2,14 @@ import { asc, eq } from "drizzle-orm";
 import type { Database } from "~db/client";
 import { claims, flags } from "~db/schema";
 import { ruleById } from "~/checker/registry";
+import { fmt } from "~/checker/types";
 
 import type { FlagView } from "./views";
 
 export type { FlagView };
 
-/** Numbers to four significant digits (the checker keeps full precision; people read four). */
-const show = (v: unknown) =>
-  v === undefined || v === null ? null : typeof v === "number" ? (Number.isInteger(v) && Math.abs(v) < 1e6 ? String(v) : Number(v.toPrecision(4)).toString()) : String(v);
+/** Numbers to four significant figures in the checker's one format (the checker keeps full precision; people read four). */
+const show = (v: unknown) => (v === undefined || v === null ? null : typeof v === "number" ? fmt(v) : String(v));
 
 /** A round's stored flags, with the rule's one-line explanation beside each. */
 export async function roundFlags(db: Database, roundId: string): Promise<FlagView[]> {

@@ -4,6 +4,7 @@ import type { Database } from "~db/client";
 import { attachments, flags, storedFiles } from "~db/schema";
 import { check } from "~/checker";
 import type { RunRecord } from "~/checker/schema";
+import { seriesSummary } from "~/checker/derive";
 import { analyseSeries } from "~/checker/series";
 import type { Derived } from "~/checker/types";
 import { loadRoundInputs } from "./recheck.server";
@@ -69,7 +70,7 @@ export async function runPlots(db: Database, runVersionId: string, record: RunRe
         const pairs = t.map((x, i) => ({ x, y: a.data[c]![i]! }));
         points[c] = pairs.length > MAX_POINTS ? (LTTB(pairs, MAX_POINTS) as { x: number; y: number }[]) : pairs;
       }
-      series = { columns, points, tStart: stats?.tStart ?? 0, windowStart: stats?.windowStart ?? 0, tEnd: stats?.tEnd ?? 0, rows: a.rowCount };
+      series = { columns, points, tStart: stats?.tStart ?? 0, windowStart: stats?.windowStart ?? 0, tEnd: stats?.tEnd ?? 0, rows: a.rowCount, ...(stats ? { stats: seriesSummary(stats) } : {}) };
     } else {
       const l = a.data.l ?? [];
       const columns = Object.keys(a.data).filter((c) => c !== "l");

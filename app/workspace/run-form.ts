@@ -37,9 +37,9 @@ export const RUN_SECTIONS: RunSection[] = [
   {
     title: "Control numbers",
     fields: [
-      { path: "controls.E", label: "Ekman number E", kind: "number", required: true },
-      { path: "controls.Ra", label: "Rayleigh number Ra", kind: "number", required: true },
-      { path: "controls.Pr", label: "Prandtl number Pr", kind: "number", required: true },
+      { path: "controls.E", label: "Ekman number E", kind: "number", hint: "give at least one control number; one left empty is recomputed from the material properties when they allow it" },
+      { path: "controls.Ra", label: "Rayleigh number Ra", kind: "number", hint: "may be left empty when α, g0, ΔT, ν, κ and r_o are given" },
+      { path: "controls.Pr", label: "Prandtl number Pr", kind: "number" },
       { path: "controls.Pm", label: "Magnetic Prandtl number Pm", kind: "number", hint: "leave empty for a non-magnetic run" },
     ],
   },

@@ -23,6 +23,10 @@ export async function unansweredMismatches(db: Database, roundId: string) {
  * the editors' mail — all in one transaction, guarded by the round's version.
  */
 export async function sendRound(db: Database, opts: { roundId: string; userId: string; expectedVersion: number }) {
+  const [state] = await db.select({ checkError: rounds.checkError }).from(rounds).where(eq(rounds.id, opts.roundId));
+  if (state?.checkError) {
+    throw new StateConflict(`The last check of this round failed (${state.checkError}), so its flags are out of date; fix the problem so the round can be checked, then send it.`);
+  }
   const blocking = await unansweredMismatches(db, opts.roundId);
   if (blocking.length) {
     throw new StateConflict(

@@ -36,5 +36,14 @@ export type RunRow = {
   note: number;
 };
 
-export type SeriesPlot = { columns: string[]; points: Record<string, { x: number; y: number }[]>; tStart: number; windowStart: number; tEnd: number; rows: number };
+export type SeriesPlot = {
+  columns: string[];
+  points: Record<string, { x: number; y: number }[]>;
+  tStart: number;
+  windowStart: number;
+  tEnd: number;
+  rows: number;
+  /** derived.series: per column mean, standard error, τ_int, effective samples, end of transient, z */
+  stats?: Record<string, { mean: number; stderr: number; tauInt: number; effectiveSamples: number; transientEnd: number; z?: number }>;
+};
 export type SpectrumPlot = { columns: string[]; points: { l: number; [k: string]: number }[]; truncationDegree: number };

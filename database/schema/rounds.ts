@@ -34,6 +34,11 @@ export const rounds = pgTable(
     /** When the flags were last recomputed, and a digest of the inputs they came from. */
     checkedAt: timestamp("checked_at", { withTimezone: true }),
     /**
+     * Why the last re-check failed (null when it succeeded). While set, the stored flags are
+     * from an earlier check and are shown as out of date, and the round cannot be sent.
+     */
+    checkError: text("check_error"),
+    /**
      * The manuscript as sent in this round: title, abstract, keywords, file and contributor list,
      * copied when the round is sent. Everyone but the authors reads these, so a draft's edits
      * never reach the editor or reviewers before the next round is sent.

@@ -43,7 +43,23 @@ describe("input validation: what, where, how to fix", () => {
       stated: [{ quantity: "Ekman", value: "1" }, { quantity: "E", value: "one" }, { quantity: "Pm", value: "2", run: "other" }],
     };
     const paths = errorsOf({ runs: [baseRun()], claim }).map((x) => x.path);
-    expect(paths).toEqual(["claim.varies[0]", "claim.stated[0].quantity", "claim.stated[1].value", "claim.stated[2].run"]);
+    expect([...paths].sort()).toEqual(["claim.stated[0].quantity", "claim.stated[1].value", "claim.stated[2].run", "claim.varies[0]"]);
+  });
+  it("validates ratio and scaling rows: runs of the claim, one kind per row, a readable ± value", () => {
+    const claim = {
+      format: "runproof.claim/1", title: "t", runs: [{ label: "ref-A", part: "reference" }, { label: "strat-B", part: "varied" }],
+      stated: [
+        { quantity: "Lambda", ratio: ["strat-B", "ghost"], value: "≈ 1.3" },
+        { quantity: "Ro", scalesWith: "Rayleigh", value: "0.41 ± 0.03" },
+        { quantity: "Ro", scalesWith: "RaBuoyancy", run: "ref-A", value: "0.41 ± 0.03" },
+        { quantity: "Ro", scalesWith: "RaBuoyancy", value: "0.41 ± -0.03" },
+      ],
+    };
+    const paths = errorsOf({ runs: [baseRun(), baseRun({ label: "strat-B" })], claim }).map((x) => x.path);
+    expect([...paths].sort()).toEqual(["claim.stated[0].ratio[1]", "claim.stated[1].scalesWith", "claim.stated[2]", "claim.stated[3].value"]);
+    const fixed = { ...claim, stated: claim.stated.slice(1, 2).map((r) => ({ ...r, scalesWith: "RaBuoyancy" })) };
+    expect(errorsOf({ runs: [baseRun(), baseRun({ label: "strat-B" })], claim: { ...fixed, stated: [...fixed.stated, claim.stated[0]] } }).map((x) => x.path))
+      .toEqual(["claim.stated[1].ratio[1]"]);
   });
   it("check throws CheckInputError whose message lists path and problem", () => {
     expect(() => check({ runs: [] })).toThrow(CheckInputError);

@@ -72,6 +72,24 @@ const bench = (diag: object, controls: object = {}) =>
     diagnostics: diag,
   });
 
+// ---- K helpers: Re = 2·Ra^0.5 with ±2 % scatter over Ra = 1e5…3e6 (a factor 30).
+const RAS = [1e5, 3e5, 1e6, 3e6];
+const SCATTER = [1.01, 0.99, 1.02, 0.98];
+const scalingRuns = (count = 4, dropRe?: number) =>
+  RAS.slice(0, count).map((Ra, i) =>
+    baseRun({ label: `ra-${i}`, controls: { Ra }, diagnostics: i === dropRe ? {} : { Re: 2 * Math.sqrt(Ra) * (SCATTER[i] ?? 1) } }));
+const scaling = (value: string, count = 4, dropRe?: number) => {
+  const runs = scalingRuns(count, dropRe);
+  return {
+    runs,
+    claim: claim([{ quantity: "Re", scalesWith: "Ra", value }], runs.map((r) => ({ label: r.label as string, part: "varied" })), ["controls.Ra", "diagnostics"]),
+  };
+};
+const ratioPair = (value: string, lambdaB = 2.6) => ({
+  runs: [baseRun({ diagnostics: { Lambda: 2 } }), baseRun({ label: "strat-B", diagnostics: { Lambda: lambdaB } })],
+  claim: claim([{ quantity: "Lambda", ratio: ["strat-B", "ref-A"], value }], [{ label: "ref-A", part: "reference" }, { label: "strat-B", part: "varied" }], ["diagnostics"]),
+});
+
 export const CASES: RuleCase[] = [
   // ---- A: definitions of E, Pr, Pm, Ra with PREM radius and WGS84 rotation
   { rule: "A.ekman-from-material", source: "E = ν/(Ω D²); PREM r_o; WGS84 Ω", pass: one(baseRun({ controls: { E: E_EARTH }, material: earth })), fail: one(baseRun({ controls: { E: 2 * E_EARTH }, material: earth })) },
@@ -102,7 +120,7 @@ export const CASES: RuleCase[] = [
   { rule: "E.transient-long", source: "MSER-5 (White 1997): minimum at half the series means no steady state", severity: "caution", pass: withSeries({ Re: transient(400) }), fail: withSeries({ Re: ramp(400) }) },
   { rule: "E.stationarity", source: "two-halves z score (Geweke 1992 style), |z| > 3", severity: "caution", pass: withSeries({ Re: stationary(400, 10, 0.1) }), fail: withSeries({ Re: stationary(400, 10, 0.1).map((x, i) => x + (i > 300 ? 1 : 0)) }) },
   { rule: "E.effective-samples", source: "ESS = n/τ_int ≤ n (definition; Sokal 1997): 8 rows cannot give 10", severity: "caution", pass: withSeries({ Re: stationary(400, 10, 0.1) }), fail: withSeries({ Re: stationary(8, 10, 0.1) }) },
-  { rule: "E.diagnostic-vs-series", source: "common practice", severity: "caution", pass: withSeries({ Re: stationary(400, 7.8, 0.1) }, baseRun({ diagnostics: { Re: 7.8 } })), fail: withSeries({ Re: stationary(400, 7.8, 0.1) }, baseRun({ diagnostics: { Re: 9 } })) },
+  { rule: "E.diagnostic-vs-series", source: "contract family E: max(2 % relative, 3 batch-means standard errors)", severity: "mismatch", pass: withSeries({ Re: stationary(400, 7.8, 0.1) }, baseRun({ diagnostics: { Re: 7.8 } })), fail: withSeries({ Re: stationary(400, 7.8, 0.1) }, baseRun({ diagnostics: { Re: 9 } })) },
   { rule: "E.stated-average", source: "batch means standard error", pass: { ...withSeries({ Rm: stationary(400, 500, 5) }), claim: claim([{ quantity: "Rm", value: "≈ 500" }]) }, fail: { ...withSeries({ Rm: stationary(400, 500, 5) }), claim: claim([{ quantity: "Rm", value: "≈ 300" }]) } },
   // ---- F: resolution, common practice
   { rule: "F.spectrum-decay", source: "common practice: two decades from peak to truncation", severity: "caution", pass: withSpectrum(spectrum(4)), fail: withSpectrum(spectrum(1.5)) },
@@ -128,4 +146,9 @@ export const CASES: RuleCase[] = [
   { rule: "J.benchmark-setup", source: "Christensen et al. 2001: case 1 has Pm = 5", pass: one(bench({ kineticEnergy: EKIN })), fail: one(bench({ kineticEnergy: EKIN }, { Pm: 4 })) },
   { rule: "J.benchmark-values", source: "Christensen et al. 2001: E_kin 30.773, E_mag 626.41, ω −3.1017", pass: one(bench({ kineticEnergy: 30.8, magneticEnergy: 626, driftFrequency: -3.10 })), fail: one(bench({ kineticEnergy: 32, magneticEnergy: 626, driftFrequency: -3.10 })) },
   { rule: "J.benchmark-no-values", source: "Christensen et al. 2001", severity: "note", pass: one(bench({ kineticEnergy: EKIN })), fail: one(bench({})) },
+  // ---- K: ratio and scaling statements
+  { rule: "K.stated-ratio", source: "2.6/2 = 1.3 (arithmetic); \"≈ 1.3\" = [1.17, 1.43] by the contract's ±10 % reading", pass: ratioPair("≈ 1.3"), fail: ratioPair("1.5") },
+  { rule: "K.stated-exponent", source: "OLS of log Re on log Ra: b ≈ 0.49 ± 0.01, hand-checked against simple-statistics in power-law.test.ts", pass: scaling("0.5 ± 0.02"), fail: scaling("0.41 ± 0.03") },
+  { rule: "K.fit-undecided", source: "OLS needs n ≥ 3 for a standard error (n − 2 degrees of freedom)", severity: "caution", pass: scaling("0.5 ± 0.02"), fail: scaling("0.5 ± 0.02", 2) },
+  { rule: "K.unverifiable", source: "common practice: a statement without its inputs is unchecked", severity: "note", pass: ratioPair("≈ 1.3"), fail: scaling("0.5 ± 0.1", 4, 1) },
 ];

@@ -1,9 +1,9 @@
 import { eq, like } from "drizzle-orm";
 import { afterAll, describe, expect, it } from "vitest";
-import { demoPeople } from "~db/demo-data";
+import { demoPeople, demoStages } from "~db/demo-data";
 import { outbox, user } from "~db/schema";
 import { periodKey } from "~/review/digest-grouping";
-import { runDigests } from "~/review/digest.server";
+import { previewDigest, runDigests, sendDigestNow } from "~/review/digest.server";
 import { makeSentRound } from "../../e2e/support/make-sent-round";
 import { testDatabase } from "../support/test-db";
 import { dropQueuedMail } from "./outbox-cleanup";
@@ -36,5 +36,35 @@ describe("digest job", () => {
     expect(a.submissionId).not.toBe(b.submissionId);
     await db.delete(outbox).where(eq(outbox.dedupeKey, key));
     await db.update(user).set({ digest: before!.digest, digestSentAt: before!.sentAt }).where(eq(user.email, coauthor.email));
+  });
+});
+
+describe("digest preview and send-now", () => {
+  it("previews the next digest without queueing it, and sends one submission's digest once per click", async () => {
+    const coauthor = demoPeople.find((p) => p.key === "coauthor2")!;
+    const fx = await makeSentRound(db, `${title}P`);
+    const [me] = await db.select({ id: user.id, digest: user.digest, sentAt: user.digestSentAt }).from(user).where(eq(user.email, coauthor.email));
+    await db.update(user).set({ digest: "weekly", digestSentAt: new Date(Date.now() - 3600_000) }).where(eq(user.id, me!.id));
+    const queuedFor = async () => (await db.select({ id: outbox.id }).from(outbox).where(eq(outbox.toAddress, coauthor.email))).length;
+    try {
+      const before = await queuedFor();
+      const preview = await previewDigest(db, me!.id);
+      expect(preview!.frequency).toBe("weekly");
+      expect(preview!.bySubmission.map((s) => s.title)).toContain(`${title}P`);
+      expect(preview!.bySubmission.find((s) => s.title === `${title}P`)!.lines.join(" ")).toMatch(/flag\(s\) raised/);
+      expect(await queuedFor()).toBe(before);
+
+      const now = new Date();
+      const first = await sendDigestNow(db, { submissionId: fx.submissionId, now });
+      expect(first.queued).toBeGreaterThanOrEqual(1);
+      const again = await sendDigestNow(db, { submissionId: fx.submissionId, now });
+      expect(again.queued).toBe(0);
+      const [mail] = await db.select().from(outbox).where(like(outbox.dedupeKey, `digest-now:${fx.submissionId}:${coauthor.email}:%`));
+      expect(mail!.textBody).toContain(`${title}P`);
+      // Only the one submission: the co-author's other submissions stay for the regular digest.
+      expect(mail!.textBody).not.toContain(demoStages.sent.title);
+    } finally {
+      await db.update(user).set({ digest: me!.digest, digestSentAt: me!.sentAt }).where(eq(user.id, me!.id));
+    }
   });
 });

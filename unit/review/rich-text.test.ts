@@ -1,11 +1,12 @@
 import { describe, expect, it } from "vitest";
 import { docText } from "~/review/tiptap/extensions";
-import { renderRichText } from "~/review/tiptap/render.server";
+import { compose } from "~/mail/compose";
+import { renderRichText, richMailPart } from "~/review/tiptap/render.server";
 
 const para = (...content: unknown[]) => ({ type: "doc", content: [{ type: "paragraph", content }] });
 
 describe("rich text rendered on the server", () => {
-  it("renders the schema's marks and nodes, TeX as code.tex", () => {
+  it("renders the schema's marks and nodes, TeX typeset", () => {
     const html = renderRichText({
       type: "doc",
       content: [
@@ -16,7 +17,10 @@ describe("rich text rendered on the server", () => {
     });
     expect(html).toContain("<h3>Run length</h3>");
     expect(html).toContain("<ul><li><p><strong>one</strong></p></li></ul>");
-    expect(html).toContain('<code class="tex">\\mathrm{Pm} = \\nu/\\eta</code>');
+    // TeX is typeset by KaTeX (HTML plus MathML), not left as source in a code element.
+    expect(html).not.toContain('<code class="tex">');
+    expect(html).toContain('class="katex"');
+    expect(html).toMatch(/<mi>ν<\/mi>|<mi>\u03bd<\/mi>/);
     const link = html.match(/<a [^>]*>/)?.[0] ?? "";
     expect(link).toContain('href="https://example.org/a"');
     expect(link).toContain('rel="noopener noreferrer nofollow"');
@@ -47,5 +51,42 @@ describe("rich text rendered on the server", () => {
 
   it("gives plain text for mail and PDFs, TeX between dollars", () => {
     expect(docText(para({ type: "text", text: "Pm is " }, { type: "text", text: "\\nu/\\eta", marks: [{ type: "tex" }] }))).toBe("Pm is $\\nu/\\eta$");
+  });
+});
+
+describe("formulas in rich text", () => {
+  it("typesets TeX with KaTeX and keeps TeX commands from making links", () => {
+    const html = renderRichText(para({ type: "text", text: "\\href{javascript:alert(1)}{x} + \\url{https://evil.example}", marks: [{ type: "tex" }] }));
+    expect(html).not.toMatch(/href=|<script|javascript:[^<]*"/i);
+  });
+
+  it("gives mail MathML without the TeX annotation, and a text part in Unicode with list numbers", () => {
+    const doc = {
+      type: "doc",
+      content: [
+        { type: "paragraph", content: [{ type: "text", text: "Check " }, { type: "text", text: "Ro = Re\\,E", marks: [{ type: "tex" }] }] },
+        {
+          type: "orderedList",
+          attrs: { start: 1 },
+          content: ["run length", "resolution", "N/\\Omega"].map((t, i) => ({ type: "listItem", content: [{ type: "paragraph", content: [{ type: "text", text: t, marks: i === 2 ? [{ type: "tex" }] : [] }] }] })),
+        },
+      ],
+    };
+    const part = richMailPart(doc);
+    expect(part.html).toContain("<ol>");
+    expect(part.html.match(/<li>/g)).toHaveLength(3);
+    expect(part.html).toContain("<math");
+    expect(part.html).not.toContain("<annotation");
+    expect(part.html).not.toContain("\\Omega");
+    expect(part.text).toContain("Check Ro = Re\u2009E");
+    expect(part.text).toContain("1. run length\n2. resolution\n3. N/Ω");
+  });
+
+  it("keeps paragraphs and lists apart in the composed HTML mail", () => {
+    const mail = compose({ subject: "s", greeting: "Hello,", paragraphs: ["First.\n\nSecond.", richMailPart({ type: "doc", content: [{ type: "bulletList", content: [{ type: "listItem", content: [{ type: "paragraph", content: [{ type: "text", text: "a" }] }] }] }] })] });
+    expect(mail.html).toContain("<p>First.</p>");
+    expect(mail.html).toContain("<p>Second.</p>");
+    expect(mail.html).toContain("<ul><li><p>a</p></li></ul>");
+    expect(mail.text).toContain("• a");
   });
 });

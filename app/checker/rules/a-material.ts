@@ -1,10 +1,10 @@
 /** Family A: control numbers recomputed from material properties under the declared conventions. */
 import type { RunContext } from "../context.ts";
 import { convert, toClassical, type Frame } from "../conventions.ts";
-import { flagOf, fmt, relDiff, type Flag, type RuleInfo } from "../types.ts";
+import { flagOf, fmt, relDiff, relativeTolerance, type Flag, type RuleInfo } from "../types.ts";
 
 const SRC_DEF = "definitions of the control numbers (e.g. Christensen et al. 2001, PEPI 128, 25–34)";
-const tol = "relative difference above policy.identityTolerance (default 0.02)";
+const tol = "relative difference above policy.identityTolerance (default 2 % relative)";
 
 const info = (id: string, title: string, explanation: string, source = SRC_DEF): RuleInfo => ({
   id, family: "A", title, explanation, severities: ["mismatch"], policyKey: "identityTolerance", threshold: tol, source,
@@ -52,29 +52,32 @@ export function checkMaterial(ctx: RunContext): Flag[] {
   const { run, recomputed: rec, policy } = ctx;
   const c = run.controls;
   const tolerance = policy.identityTolerance;
-  const m = `${ctx.path}.material`;
+  const m = `the material properties of ${ctx.label}`;
   const compare = (key: keyof typeof RULES_A & ("E" | "Pr" | "Pm" | "Ra" | "RaFlux"), configured: number | undefined, from: number | undefined, how: string) => {
     if (configured === undefined || from === undefined) return;
     if (relDiff(configured, from) <= tolerance) return;
     const hint = key === "E" || key === "Ra" ? conventionHint(key, configured, from, ctx) : "";
-    out.push(flagOf(RULES_A[key], "mismatch", [`controls.${key === "RaFlux" ? "Ra" : key}`, m],
-      `${ctx.label}: configured ${key === "Ra" && run.conventions.rayleigh !== "classical" ? `Ra (${run.conventions.rayleigh} ${fmt(c.Ra)}, as classical)` : key} = ${fmt(configured)} but ${how} gives ${fmt(from)} (${fmt(100 * relDiff(configured, from))} % off).${hint}`,
-      { expected: from, found: configured, tolerance, run: ctx.label }));
+    const what = key === "Ra" && run.conventions.rayleigh !== "classical" && c.Ra !== undefined
+      ? `Ra (${run.conventions.rayleigh} ${fmt(c.Ra)}, as classical)`
+      : key === "RaFlux" ? "Ra (flux-based)" : key;
+    out.push(flagOf(RULES_A[key], "mismatch", [`controls.${key === "RaFlux" ? "Ra" : key}`, "material"],
+      `${ctx.label}: configured ${what} = ${fmt(configured)} but ${how} gives ${fmt(from)} (${fmt(100 * relDiff(configured, from))} % off; tolerance ${relativeTolerance(tolerance)}).${hint}`,
+      { expected: from, found: configured, tolerance: relativeTolerance(tolerance), run: ctx.label }));
   };
   compare("E", c.E, rec.E, `ν/(${run.conventions.rotationFactor}·Ω·L²) from ${m}`);
   compare("Pr", c.Pr, rec.Pr, `ν/κ from ${m}`);
   compare("Pm", c.Pm, rec.Pm, `ν/η from ${m}`);
   const chi = run.geometry.radiusRatio;
-  const fc = { E: c.E, Pr: c.Pr, lengthScale: run.conventions.lengthScale, chi, ...(ctx.given.Nu !== undefined ? { Nu: ctx.given.Nu } : {}) };
+  const fc = { E: ctx.derived.E, Pr: ctx.derived.Pr, lengthScale: run.conventions.lengthScale, chi, ...(ctx.given.Nu !== undefined ? { Nu: ctx.given.Nu } : {}) };
   if (run.conventions.rayleigh === "flux") {
     compare("RaFlux", c.Ra, rec.RaFlux, `g0·F/(4πρΩ'³L⁴) from ${m}`);
-    if (ctx.given.Nu === undefined) {
+    if (ctx.given.Nu === undefined && c.Ra !== undefined) {
       out.push(flagOf(RULES_A.fluxNeedsNu, "note", ["controls.Ra", "Nu"],
         `${ctx.label}: Ra is declared flux-based and no Nusselt number is given (diagnostics.Nu or a series column Nu), so the classical, rotating and buoyancy Rayleigh numbers are unknown.`,
         { run: ctx.label }));
     }
   }
-  const classical = toClassical(c.Ra, run.conventions.rayleigh, fc);
+  const classical = c.Ra !== undefined ? toClassical(c.Ra, run.conventions.rayleigh, fc) : undefined;
   compare("Ra", classical, rec.Ra, `α·g0·ΔT·L³/(ν·κ) from ${m}`);
   return out;
 }

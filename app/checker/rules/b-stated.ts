@@ -41,6 +41,7 @@ export function checkStated(cc: ClaimContext): Flag[] {
   const out: Flag[] = [];
   const rows = cc.claim.stated ?? [];
   rows.forEach((row, i) => {
+    if (row.ratio || row.scalesWith !== undefined) return; // family K
     const iv = parseStated(row.value); // validated when the input was parsed
     const labels = row.run !== undefined ? [row.run] : cc.claim.runs.map((r) => r.label);
     for (const label of labels) {
@@ -54,16 +55,17 @@ export function checkStated(cc: ClaimContext): Flag[] {
 function checkRow(ctx: RunContext, q: string, iv: Interval, row: number, cc: ClaimContext): Flag[] {
   const out: Flag[] = [];
   const extra = { run: ctx.label, claimRow: row };
+  // A stated average is checked against the series whenever a series carries the column
+  // (contract, family E); a diagnostics value that disagrees with it is flagged by E.diagnostic-vs-series.
   const col = ctx.series?.columns[q];
-  const diag = (ctx.run.diagnostics as Record<string, number | undefined> | undefined)?.[q];
-  if (col && diag === undefined) {
+  if (col) {
     const z = cc.policy.zScore;
     const lo = col.mean - z * col.standardError;
     const hi = col.mean + z * col.standardError;
     if (!overlaps(iv, lo, hi)) {
       out.push(flagOf(RULES_E.stated, "mismatch", [q],
-        `${ctx.label}: stated ${q} ${describe(iv)} but its series averages ${fmt(col.mean)} ± ${fmt(col.standardError)} (standard error) after the transient.`,
-        { expected: col.mean, found: iv.text, tolerance: z * col.standardError, ...extra }));
+        `${ctx.label}: stated ${q} ${describe(iv)} but the attached series of ${q} averages ${fmt(col.mean)} ± ${fmt(col.standardError)} (standard error) after the transient; the stated interval misses mean ± ${fmt(z)} standard errors = [${fmt(lo)}, ${fmt(hi)}].`,
+        { expected: col.mean, found: iv.text, tolerance: `${fmt(z)} standard errors = ${fmt(z * col.standardError)}`, ...extra }));
     }
     return out;
   }

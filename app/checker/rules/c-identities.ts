@@ -8,10 +8,10 @@
  */
 import type { RunContext } from "../context.ts";
 import { velocityToRe } from "../derive.ts";
-import { flagOf, fmt, relDiff, type Flag, type RuleInfo } from "../types.ts";
+import { flagOf, fmt, relDiff, relativeTolerance, type Flag, type RuleInfo } from "../types.ts";
 
 const SRC = "definitions of the diagnostic numbers; Christensen et al. 2001, PEPI 128, 25–34 (energy scaling)";
-const threshold = "relative difference above policy.identityTolerance (default 0.02)";
+const threshold = "relative difference above policy.identityTolerance (default 2 % relative)";
 const info = (id: string, title: string, explanation: string): RuleInfo => ({
   id, family: "C", title, explanation, severities: ["mismatch"], policyKey: "identityTolerance", threshold, source: SRC,
 });
@@ -28,17 +28,17 @@ export const RULES_C = {
 export function checkIdentities(ctx: RunContext): Flag[] {
   const out: Flag[] = [];
   const g = ctx.given;
-  const E = ctx.run.controls.E;
+  const E = ctx.derived.E;
   const Pm = ctx.derived.Pm;
   const tolerance = ctx.policy.identityTolerance;
   const test = (r: RuleInfo, name: string, found: number | undefined, expected: number | undefined, how: string, qs: string[]) => {
     if (found === undefined || expected === undefined || !Number.isFinite(expected)) return;
     if (relDiff(found, expected) <= tolerance) return;
     out.push(flagOf(r, "mismatch", qs,
-      `${ctx.label}: ${name} = ${fmt(found)} but ${how} = ${fmt(expected)} (${fmt(100 * relDiff(found, expected))} % off).`,
-      { expected, found, tolerance, run: ctx.label }));
+      `${ctx.label}: ${name} = ${fmt(found)} but ${how} = ${fmt(expected)} (${fmt(100 * relDiff(found, expected))} % off; tolerance ${relativeTolerance(tolerance)}).`,
+      { expected, found, tolerance: relativeTolerance(tolerance), run: ctx.label }));
   };
-  if (Pm !== undefined) {
+  if (Pm !== undefined && E !== undefined) {
     test(RULES_C.rmRePm, "Rm", g.Rm, g.Re !== undefined ? g.Re * Pm : undefined, `Re·Pm = ${fmt(g.Re ?? NaN)}·${fmt(Pm)}`, ["Rm", "Re", "Pm"]);
     test(RULES_C.rmRoPmE, "Rm", g.Rm, g.Ro !== undefined ? (g.Ro * Pm) / E : undefined, "Ro·Pm/E", ["Rm", "Ro", "Pm", "E"]);
     test(RULES_C.lambdaLo, "Λ", g.Lambda, g.Lo !== undefined ? (g.Lo * g.Lo * Pm) / E : undefined, "Lo²·Pm/E", ["Lambda", "Lo", "Pm", "E"]);
@@ -46,8 +46,10 @@ export function checkIdentities(ctx: RunContext): Flag[] {
       test(RULES_C.lambdaEmag, "Λ", g.Lambda, g.magneticEnergy !== undefined ? 2 * E * Pm * g.magneticEnergy : undefined,
         "2·E·Pm·E_mag", ["Lambda", "magneticEnergy", "E", "Pm"]);
     }
+  } else if (Pm !== undefined) {
+    test(RULES_C.rmRePm, "Rm", g.Rm, g.Re !== undefined ? g.Re * Pm : undefined, `Re·Pm = ${fmt(g.Re ?? NaN)}·${fmt(Pm)}`, ["Rm", "Re", "Pm"]);
   }
-  test(RULES_C.roReE, "Ro", g.Ro, g.Re !== undefined ? g.Re * E : undefined, "Re·E", ["Ro", "Re", "E"]);
+  if (E !== undefined) test(RULES_C.roReE, "Ro", g.Ro, g.Re !== undefined ? g.Re * E : undefined, "Re·E", ["Ro", "Re", "E"]);
   const k = velocityToRe(ctx.run, ctx.derived);
   test(RULES_C.reEkin, "Re", g.Re, g.kineticEnergy !== undefined && k !== undefined ? Math.sqrt(2 * g.kineticEnergy) * k : undefined,
     ctx.run.conventions.timeScale === "viscous" ? "√(2·E_kin)" : `√(2·E_kin) converted from ${ctx.run.conventions.timeScale} units`,

@@ -1,6 +1,6 @@
 /** Family E: transient, stationarity and effective sample size of attached time series. */
 import type { RunContext } from "../context.ts";
-import { flagOf, fmt, type Flag, type RuleInfo } from "../types.ts";
+import { flagOf, fmt, relativeTolerance, type Flag, type RuleInfo } from "../types.ts";
 
 const MSER = "MSER-5, White 1997 (Simulation 69, 323–334); White, Cobb & Spratt 2000";
 
@@ -29,9 +29,10 @@ export const RULES_E = {
   },
   diagnosticVsSeries: {
     id: "E.diagnostic-vs-series", family: "E", title: "Diagnostic value differs from the series mean",
-    explanation: "A diagnostic given in the record should agree with the mean of the same column of its attached series.",
-    severities: ["caution"], policyKey: "zScore",
-    threshold: "difference above policy.zScore standard errors and above policy.identityTolerance", source: "common practice",
+    explanation: "A diagnostic given in the record must agree with the mean of the same column of its attached series (after the transient) within the larger of the policy tolerance and 3 standard errors.",
+    severities: ["mismatch"], policyKey: "identityTolerance",
+    threshold: "difference above max(policy.identityTolerance × |mean| (default 2 % relative), policy.zScore (default 3) standard errors)",
+    source: "batch means standard error; MSER-5 truncation (White 1997)",
   },
   stated: {
     id: "E.stated-average", family: "E", title: "Stated average differs from the series mean",
@@ -64,7 +65,7 @@ export function checkSeries(ctx: RunContext): Flag[] {
     if (Math.abs(c.z) > p.zScore) {
       out.push(flagOf(RULES_E.stationarity, "caution", q,
         `${label}: the two halves of ${c.column} after the transient differ by z = ${fmt(c.z)} standard errors.`,
-        { found: c.z, tolerance: p.zScore, run: label }));
+        { found: c.z, tolerance: `|z| ≤ ${fmt(p.zScore)}`, run: label }));
     }
     if (c.ess < p.minEffectiveSamples) {
       out.push(flagOf(RULES_E.ess, "caution", q,
@@ -74,10 +75,14 @@ export function checkSeries(ctx: RunContext): Flag[] {
     const d = (ctx.run.diagnostics as Record<string, number | undefined> | undefined)?.[c.column];
     if (d !== undefined) {
       const diff = Math.abs(d - c.mean);
-      if (diff > p.zScore * c.standardError && diff > p.identityTolerance * Math.abs(c.mean)) {
-        out.push(flagOf(RULES_E.diagnosticVsSeries, "caution", [c.column, `series.${c.column}`],
-          `${label}: diagnostics.${c.column} = ${fmt(d)} but its series averages ${fmt(c.mean)} ± ${fmt(c.standardError)} after the transient.`,
-          { expected: c.mean, found: d, tolerance: p.zScore * c.standardError, run: label }));
+      const byTol = p.identityTolerance * Math.abs(c.mean);
+      const bySe = p.zScore * c.standardError;
+      const allowed = Math.max(byTol, bySe);
+      if (diff > allowed) {
+        const which = byTol >= bySe ? `${relativeTolerance(p.identityTolerance)}, = ${fmt(byTol)}` : `${fmt(p.zScore)} standard errors, = ${fmt(bySe)}`;
+        out.push(flagOf(RULES_E.diagnosticVsSeries, "mismatch", [c.column, `series.${c.column}`],
+          `${label}: diagnostics.${c.column} = ${fmt(d)} but the attached series of ${c.column} averages ${fmt(c.mean)} ± ${fmt(c.standardError)} (standard error) after the transient; they differ by ${fmt(diff)}, more than the tolerance (${which}).`,
+          { expected: c.mean, found: d, tolerance: `max(${relativeTolerance(p.identityTolerance)}, ${fmt(p.zScore)} standard errors) = ${fmt(allowed)}`, run: label }));
       }
     }
   }

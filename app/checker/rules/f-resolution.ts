@@ -71,14 +71,15 @@ export function checkResolution(ctx: RunContext): Flag[] {
       }
     }
   }
-  if (res?.radialPoints !== undefined && res.radialGrid !== undefined) {
+  const E = ctx.derived.E;
+  if (res?.radialPoints !== undefined && res.radialGrid !== undefined && E !== undefined) {
     const need = p.ekmanLayerPoints;
     if (res.radialGrid === "stretched") {
       out.push(flagOf(RULES_F.ekman, "note", ["resolution.radialGrid"],
         `${label}: points inside the Ekman layer cannot be counted on a stretched grid; the reviewer should check them.`, { run: label }));
     } else {
       const { ri, D } = shellRadii(ctx.run.conventions.lengthScale, ctx.run.geometry.radiusRatio);
-      const delta = Math.sqrt(ctx.run.controls.E);
+      const delta = Math.sqrt(E);
       const n = pointsInLayer(res.radialGrid, res.radialPoints, ri, D, delta);
       if (n.min < need) {
         out.push(flagOf(RULES_F.ekman, "caution", ["resolution.radialPoints", "E"],

@@ -47,11 +47,13 @@ export function comparable(ctx: RunContext): Map<string, Leaf> {
   const out = new Map<string, Leaf>();
   flatten("geometry", r.geometry, out);
   flatten("conventions", r.conventions, out);
-  out.set("controls.E", convert("E", r.controls.E, r.conventions, CANONICAL, chi));
+  const d = ctx.derived;
+  if (d.E !== undefined) out.set("controls.E", convert("E", d.E, r.conventions, CANONICAL, chi));
   const ra = ctx.derived.Ra;
-  out.set("controls.Ra", ra !== undefined ? convert("Ra", ra, r.conventions, CANONICAL, chi) : `${r.controls.Ra} (${r.conventions.rayleigh})`);
-  out.set("controls.Pr", r.controls.Pr);
-  if (r.controls.Pm !== undefined) out.set("controls.Pm", r.controls.Pm);
+  if (ra !== undefined) out.set("controls.Ra", convert("Ra", ra, r.conventions, CANONICAL, chi));
+  else if (r.controls.Ra !== undefined) out.set("controls.Ra", `${r.controls.Ra} (${r.conventions.rayleigh})`);
+  if (d.Pr !== undefined) out.set("controls.Pr", d.Pr);
+  if (d.Pm !== undefined) out.set("controls.Pm", d.Pm);
   flatten("boundaries", r.boundaries, out);
   flatten("stableLayer", r.stableLayer, out);
   flatten("material", ctx.material, out);

@@ -41,9 +41,9 @@ export function checkRegime(ctx: RunContext): Flag[] {
   const chi = ctx.run.geometry.radiusRatio;
   const own = ctx.run.conventions;
   const Nu = ctx.given.Nu;
-  if (d.RaBuoyancy !== undefined && Nu !== undefined && Nu > 1 && d.Ro !== undefined && d.Pr !== undefined) {
+  if (d.RaBuoyancy !== undefined && Nu !== undefined && Nu > 1 && d.Ro !== undefined && d.Pr !== undefined && d.E !== undefined) {
     const raStar = convert("RaBuoyancy", d.RaBuoyancy, own, CANONICAL, chi);
-    const E = convert("E", ctx.run.controls.E, own, CANONICAL, chi);
+    const E = convert("E", d.E, own, CANONICAL, chi);
     const Ro = convert("Ro", d.Ro, own, CANONICAL, chi);
     const pred = predictedRossby(fluxRayleighStar(raStar, Nu, E, d.Pr));
     const r = Ro / pred;

@@ -53,10 +53,10 @@ export function checkBenchmark(ctx: RunContext): Flag[] {
     }
   };
   setup("chi", b.controls.chi, chi);
-  setup("E", b.controls.E, convert("E", run.controls.E, own, CANONICAL, chi));
+  setup("E", b.controls.E, ctx.derived.E !== undefined ? convert("E", ctx.derived.E, own, CANONICAL, chi) : undefined);
   setup("RaRotating", b.controls.RaRotating, ctx.derived.RaRotating !== undefined ? convert("RaRotating", ctx.derived.RaRotating, own, CANONICAL, chi) : undefined);
-  setup("Pr", b.controls.Pr, run.controls.Pr);
-  setup("Pm", b.controls.Pm, run.controls.Pm);
+  setup("Pr", b.controls.Pr, ctx.derived.Pr);
+  setup("Pm", b.controls.Pm, ctx.derived.Pm);
   for (const side of ["inner", "outer"] as const) {
     const bc = run.boundaries?.[side];
     if (bc?.velocity) setup(`boundaries.${side}.velocity`, "no-slip", bc.velocity);

@@ -1,4 +1,5 @@
 import type { FlagView } from "~/workspace/views";
+import { severityLabel } from "~/review/labels";
 
 const tone: Record<string, string> = { mismatch: "border-ember bg-ember-wash", caution: "border-amber bg-amber-wash", note: "border-fjord bg-fjord-wash" };
 
@@ -7,7 +8,7 @@ export function FlagItem({ flag, children }: { flag: FlagView; children?: React.
   return (
     <li className={`rounded border-l-4 p-2 ${tone[flag.severity] ?? ""}`} data-testid="flag" data-flag-id={flag.id}>
       <p className="text-caption">
-        <strong>{flag.severity}</strong> · {flag.ruleTitle}
+        <strong>{severityLabel(flag.severity)}</strong> · {flag.ruleTitle}
         {flag.runLabel ? ` · run ${flag.runLabel}` : ""}
       </p>
       <p>{flag.message}</p>

@@ -1,33 +1,76 @@
 import { useState } from "react";
 import { useFetcher } from "react-router";
+import { isStatable, QUANTITY_NAMES, STATABLE, suggestQuantity, VARIABLE_PATHS } from "~/checker/quantity-keys";
+import { describe, parseStated, StatedValueError } from "~/checker/stated";
 
-type Stated = { quantity: string; value: string; run: string };
+type StatedKind = "value" | "ratio" | "scaling";
+type Stated = { kind: StatedKind; quantity: string; value: string; run: string; ratioA: string; ratioB: string; scalesWith: string };
 type RunRef = { label: string; part: string };
 export type ClaimDraft = { title: string; figure: string; statement: string; runs: RunRef[]; varies: string; stated: Stated[] };
 type Reply = { ok?: boolean; error?: { message: string; issues: { path: string; message: string }[] } };
 
 export function claimDraftOf(c?: { figure: string | null; statement: string; record: unknown }): ClaimDraft {
-  const r = (c?.record ?? {}) as { title?: string; runs?: RunRef[]; varies?: string[]; stated?: { quantity: string; value: string | number; run?: string }[] };
+  const r = (c?.record ?? {}) as {
+    title?: string;
+    runs?: RunRef[];
+    varies?: string[];
+    stated?: { quantity: string; value: string | number; run?: string; ratio?: [string, string]; scalesWith?: string }[];
+  };
   return {
     title: r.title ?? "",
     figure: c?.figure ?? "",
     statement: c?.statement ?? "",
     runs: r.runs?.length ? r.runs : [{ label: "", part: "reference" }],
     varies: (r.varies ?? []).join(", "),
-    stated: (r.stated ?? []).map((s) => ({ quantity: s.quantity, value: String(s.value), run: s.run ?? "" })),
+    stated: (r.stated ?? []).map((s) => ({
+      kind: s.ratio ? "ratio" : s.scalesWith !== undefined ? "scaling" : "value",
+      quantity: s.quantity,
+      value: String(s.value),
+      run: s.run ?? "",
+      ratioA: s.ratio?.[0] ?? "",
+      ratioB: s.ratio?.[1] ?? "",
+      scalesWith: s.scalesWith ?? "",
+    })),
   };
 }
 
 /** The claim as `runproof.claim/1`, built from the editor's rows. */
-function recordOf(d: ClaimDraft) {
+export function recordOf(d: ClaimDraft) {
   const varies = d.varies.split(/[,\s]+/).filter(Boolean);
   return {
     format: "runproof.claim/1",
     title: d.title,
     runs: d.runs.filter((r) => r.label),
     ...(varies.length ? { varies } : {}),
-    ...(d.stated.length ? { stated: d.stated.map((s) => ({ quantity: s.quantity, value: s.value, ...(s.run ? { run: s.run } : {}) })) } : {}),
+    ...(d.stated.length ? { stated: d.stated.map(statedOf) } : {}),
   };
+}
+
+function statedOf(s: Stated) {
+  const base = { quantity: s.quantity.trim(), value: s.value };
+  if (s.kind === "ratio") return { ...base, ratio: [s.ratioA, s.ratioB] };
+  if (s.kind === "scaling") return { ...base, scalesWith: s.scalesWith.trim() };
+  return { ...base, ...(s.run ? { run: s.run } : {}) };
+}
+
+/** What a typed quantity means, or what to type instead — shown as the author types. */
+function quantityHint(q: string): { ok: boolean; text: string } | null {
+  const t = q.trim();
+  if (!t) return null;
+  if (isStatable(t)) return { ok: true, text: QUANTITY_NAMES[t] ?? t };
+  const hint = suggestQuantity(t);
+  return { ok: false, text: `not a known quantity${hint ? ` — did you mean ${hint} (${QUANTITY_NAMES[hint]})?` : "; pick one from the list"}` };
+}
+
+/** The interval a stated value means, e.g. 3.0e-5 → [2.95e-5, 3.05e-5). */
+function valueHint(v: string): { ok: boolean; text: string } | null {
+  if (!v.trim()) return null;
+  try {
+    return { ok: true, text: `${v.trim()} → ${describe(parseStated(v)).replace(/^"[^"]*"\s*(=\s*)?/, "")}` };
+  } catch (e) {
+    if (e instanceof StatedValueError) return { ok: false, text: e.message };
+    throw e;
+  }
 }
 
 /**
@@ -99,6 +142,18 @@ export function ClaimEditor({ initial, runLabels, action, intent, version, readO
           ))}
         </tbody>
       </table>
+      <datalist id="claim-quantities">
+        {STATABLE.map((k) => (
+          <option key={k} value={k}>
+            {QUANTITY_NAMES[k]}
+          </option>
+        ))}
+      </datalist>
+      <datalist id="claim-paths">
+        {VARIABLE_PATHS.map((p) => (
+          <option key={p} value={p} />
+        ))}
+      </datalist>
       <datalist id="claim-parts">
         <option value="reference" />
         <option value="varied" />
@@ -113,15 +168,16 @@ export function ClaimEditor({ initial, runLabels, action, intent, version, readO
       <label className="flex flex-col gap-1">
         <span className="font-semibold">Parameters the claim varies</span>
         <span className="text-caption text-basalt-soft">Dotted paths of the run record, e.g. stableLayer, controls.Ra — separated by commas.</span>
-        <input name="claim-varies" className="field-input" value={d.varies} onChange={(e) => set({ varies: e.target.value })} readOnly={readOnly} />
+        <input name="claim-varies" list="claim-paths" className="field-input" value={d.varies} onChange={(e) => set({ varies: e.target.value })} readOnly={readOnly} />
       </label>
       <table className="text-left text-caption" aria-label="Stated values">
         <thead>
           <tr>
             <th scope="col">#</th>
+            <th scope="col">Kind</th>
             <th scope="col">Quantity</th>
             <th scope="col">Value as written</th>
-            <th scope="col">Run</th>
+            <th scope="col">Runs</th>
             <th scope="col">
               <span className="sr-only">Remove</span>
             </th>
@@ -131,17 +187,44 @@ export function ClaimEditor({ initial, runLabels, action, intent, version, readO
           {d.stated.map((s, i) => {
             const err = issueAt(`stated[${i}]`);
             const upd = (patch: Partial<Stated>) => set({ stated: d.stated.map((x, j) => (j === i ? { ...x, ...patch } : x)) });
+            const qh = quantityHint(s.quantity);
+            const vh = valueHint(s.value);
             return (
               <tr key={i} id={`stated-${i}`} data-testid="stated-row" className={err ? "bg-ember-wash" : ""}>
                 <td>{i + 1}</td>
                 <td>
-                  <input aria-label={`Quantity ${i + 1}`} className="field-input py-0.5" value={s.quantity} onChange={(e) => upd({ quantity: e.target.value })} placeholder="e.g. Pm" readOnly={readOnly} />
+                  <select aria-label={`Kind of value ${i + 1}`} className="field-input py-0.5" value={s.kind} onChange={(e) => upd({ kind: e.target.value as StatedKind })} disabled={readOnly}>
+                    <option value="value">value</option>
+                    <option value="ratio">ratio of two runs</option>
+                    <option value="scaling">scaling exponent</option>
+                  </select>
                 </td>
                 <td>
-                  <input aria-label={`Value ${i + 1}`} className="field-input py-0.5" value={s.value} onChange={(e) => upd({ value: e.target.value })} placeholder="e.g. ≈ 2" readOnly={readOnly} />
+                  <input aria-label={`Quantity ${i + 1}`} list="claim-quantities" className="field-input py-0.5" value={s.quantity} onChange={(e) => upd({ quantity: e.target.value })} placeholder="e.g. Pm" readOnly={readOnly} />
+                  {qh ? <span className={`block text-caption ${qh.ok ? "text-basalt-soft" : "field-error"}`} data-testid="quantity-hint">{qh.text}</span> : null}
+                </td>
+                <td>
+                  <input aria-label={`Value ${i + 1}`} className="field-input py-0.5" value={s.value} onChange={(e) => upd({ value: e.target.value })} placeholder={s.kind === "scaling" ? "e.g. 0.41 ± 0.03" : "e.g. ≈ 2"} readOnly={readOnly} />
+                  {vh ? <span className={`block font-mono text-caption ${vh.ok ? "text-basalt-soft" : "field-error"}`} data-testid="value-interval">{vh.text}</span> : null}
                   {err ? <span className="field-error block">{err}</span> : null}
                 </td>
-                <td>{runSelect(s.run, (v) => upd({ run: v }), `stated-run-${i}`, `Run of value ${i + 1}`, true)}</td>
+                <td>
+                  {s.kind === "value" ? runSelect(s.run, (v) => upd({ run: v }), `stated-run-${i}`, `Run of value ${i + 1}`, true) : null}
+                  {s.kind === "ratio" ? (
+                    <span className="flex items-center gap-1">
+                      {runSelect(s.ratioA, (v) => upd({ ratioA: v }), `stated-ratio-a-${i}`, `Numerator run of value ${i + 1}`, false)}
+                      <span aria-hidden="true">/</span>
+                      {runSelect(s.ratioB, (v) => upd({ ratioB: v }), `stated-ratio-b-${i}`, `Denominator run of value ${i + 1}`, false)}
+                    </span>
+                  ) : null}
+                  {s.kind === "scaling" ? (
+                    <label className="flex items-center gap-1">
+                      <span>∝</span>
+                      <input aria-label={`Scales with, value ${i + 1}`} list="claim-quantities" className="field-input py-0.5" value={s.scalesWith} onChange={(e) => upd({ scalesWith: e.target.value })} placeholder="e.g. RaBuoyancy" readOnly={readOnly} />
+                      <span>^b over every run</span>
+                    </label>
+                  ) : null}
+                </td>
                 <td>
                   {!readOnly ? (
                     <button type="button" className="btn-quiet btn py-0.5" onClick={() => set({ stated: d.stated.filter((_, j) => j !== i) })}>
@@ -156,7 +239,7 @@ export function ClaimEditor({ initial, runLabels, action, intent, version, readO
       </table>
       {!readOnly ? (
         <div className="flex flex-wrap items-center gap-2">
-          <button type="button" className="btn-quiet btn" onClick={() => set({ stated: [...d.stated, { quantity: "", value: "", run: "" }] })}>
+          <button type="button" className="btn-quiet btn" onClick={() => set({ stated: [...d.stated, { kind: "value", quantity: "", value: "", run: "", ratioA: "", ratioB: "", scalesWith: "" }] })}>
             Add a stated value
           </button>
           <button type="button" className="btn" onClick={save} disabled={fetcher.state !== "idle"}>

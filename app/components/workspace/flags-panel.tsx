@@ -2,6 +2,7 @@ import { useMemo, useState } from "react";
 import { Link, useFetcher } from "react-router";
 import { AdvisoryNote } from "~/components/advisory-note";
 import type { FlagView } from "~/workspace/views";
+import { severityLabel } from "~/review/labels";
 
 type Props = {
   flags: FlagView[];
@@ -15,6 +16,8 @@ type Props = {
   answerAction?: (flagId: string) => string;
   /** Filters to start from (e.g. from the URL). */
   initial?: Partial<Record<"severity" | "rule" | "run" | "claim", string>>;
+  /** Why the round's last check failed (null/absent: it succeeded); the flags are then out of date. */
+  checkError?: string | null;
 };
 
 const tone: Record<string, string> = {
@@ -50,7 +53,7 @@ function Answer({ flag, action }: { flag: FlagView; action: string }) {
 }
 
 /** The checker's flags of a round, filterable by severity, rule, run and claim. Props in, no loaders. */
-export function FlagsPanel({ flags, runLabels, claims, runHref, claimHref, answerAction, initial = {} }: Props) {
+export function FlagsPanel({ flags, runLabels, claims, runHref, claimHref, answerAction, initial = {}, checkError }: Props) {
   const [filter, setFilter] = useState({ severity: initial.severity ?? "", rule: initial.rule ?? "", run: initial.run ?? "", claim: initial.claim ?? "" });
   const rulesSeen = useMemo(() => [...new Set(flags.map((f) => f.rule))].sort(), [flags]);
   const shown = flags.filter(
@@ -76,17 +79,23 @@ export function FlagsPanel({ flags, runLabels, claims, runHref, claimHref, answe
   return (
     <section aria-labelledby="flags-h" data-testid="flags-panel">
       <h3 id="flags-h" className="text-lead">
-        Flags <span className="text-caption text-basalt-soft">({shown.length} of {flags.length} shown)</span>
+        Flags{checkError ? " (out of date)" : ""} <span className="text-caption text-basalt-soft">({shown.length} of {flags.length} shown)</span>
       </h3>
+      {checkError ? (
+        <div role="alert" className="mt-2 rounded border border-ember bg-ember-wash p-3 text-ember" data-testid="check-failed">
+          <p className="font-semibold">Checking failed: the flags below are from the last successful check, not from what is stored now.</p>
+          <p className="mt-1">{checkError}</p>
+        </div>
+      ) : null}
       <AdvisoryNote className="mt-2" />
       <div className="mt-3 flex flex-wrap gap-3" role="group" aria-label="Filter the flags">
-        {select("severity", "Severity", ["mismatch", "caution", "note"].map((s) => ({ value: s, label: s })))}
+        {select("severity", "Severity", ["mismatch", "caution", "note"].map((s) => ({ value: s, label: severityLabel(s) })))}
         {select("rule", "Rule", rulesSeen.map((r) => ({ value: r, label: r })))}
         {select("run", "Run", runLabels.map((r) => ({ value: r, label: r })))}
         {select("claim", "Claim", claims.map((c) => ({ value: c.id, label: c.title })))}
       </div>
       {shown.length === 0 ? (
-        <p className="mt-3 text-caption text-basalt-soft">{flags.length ? "No flag matches these filters." : "The checker found nothing to flag."}</p>
+        <p className="mt-3 text-caption text-basalt-soft">{flags.length ? "No flag matches these filters." : checkError ? "The last successful check found nothing to flag." : "The checker found nothing to flag."}</p>
       ) : (
         <ul className="mt-3 flex flex-col gap-3">
           {shown.map((f) => {
@@ -94,7 +103,7 @@ export function FlagsPanel({ flags, runLabels, claims, runHref, claimHref, answe
             return (
               <li key={f.id} className="card" data-testid="flag" data-rule={f.rule} data-severity={f.severity} data-flag-id={f.id}>
                 <div className="flex flex-wrap items-baseline gap-2">
-                  <span className={`rounded border px-1.5 text-caption font-semibold ${tone[f.severity]}`}>{f.severity}</span>
+                  <span className={`rounded border px-1.5 text-caption font-semibold ${tone[f.severity]}`}>{severityLabel(f.severity)}</span>
                   <span className="font-semibold">{f.ruleTitle}</span>
                   <code className="text-caption text-basalt-soft">{f.rule}</code>
                   {f.runLabel ? (

@@ -1,6 +1,7 @@
 import { CartesianGrid, Legend, Line, LineChart, ReferenceArea, ReferenceLine, ResponsiveContainer, Scatter, ScatterChart, Tooltip, XAxis, YAxis, ZAxis, LabelList } from "recharts";
 import type { SeriesPlot, SpectrumPlot } from "~/workspace/views";
 import { ClientOnly } from "./client-only";
+import { fmt } from "~/checker/types";
 import { formatNumber } from "./runs-table";
 
 // Half a decade either side, so a single run or runs at one value still sit inside the frame.
@@ -40,6 +41,34 @@ export function SeriesChart({ plot, title }: { plot: SeriesPlot; title: string }
           </div>
         )}
       </ClientOnly>
+      {plot.stats ? (
+        <table className="mt-2 w-full text-left text-caption" data-testid="series-stats" aria-label="Statistics of each column after the transient">
+          <thead>
+            <tr className="border-b border-rule">
+              <th scope="col">column</th>
+              <th scope="col">mean</th>
+              <th scope="col">standard error</th>
+              <th scope="col">τ_int (samples)</th>
+              <th scope="col">effective samples</th>
+              <th scope="col">transient ends at t</th>
+              <th scope="col">z (two halves)</th>
+            </tr>
+          </thead>
+          <tbody className="font-mono">
+            {Object.entries(plot.stats).map(([c, s]) => (
+              <tr key={c} className="border-b border-rule">
+                <td>{c}</td>
+                <td>{fmt(s.mean)}</td>
+                <td>{fmt(s.stderr)}</td>
+                <td>{fmt(s.tauInt)}</td>
+                <td>{fmt(s.effectiveSamples)}</td>
+                <td>{fmt(s.transientEnd)}</td>
+                <td>{s.z === undefined ? "—" : fmt(s.z)}</td>
+              </tr>
+            ))}
+          </tbody>
+        </table>
+      ) : null}
     </figure>
   );
 }

@@ -2,7 +2,7 @@ import { getFormProps, getSelectProps } from "@conform-to/react";
 import { useCheckedForm } from "~/components/checked-form";
 import { getZodConstraint, parseWithZod } from "@conform-to/zod/v4";
 import { eq } from "drizzle-orm";
-import { data, Form } from "react-router";
+import { data, Form, href } from "react-router";
 import { venueMembers, venues } from "~db/schema";
 import { addEditorSchema, createVenueSchema } from "~/admin/forms";
 import { createVenue, findUserIdByEmail, listVenues } from "~/admin/venues.server";
@@ -80,6 +80,7 @@ export default function AdminVenues({ loaderData, actionData }: Route.ComponentP
                 <td className="py-2">
                   {v.name}
                   <div className="font-mono text-basalt-soft">{v.slug}</div>
+                  <a className="underline" href={`${href("/venues/:venueId/desk", { venueId: v.id })}#policy-h`}>Checker policy</a>
                 </td>
                 <td>{v.blinding === "double" ? "double-blind" : "single-blind"}</td>
                 <td>

@@ -1,4 +1,5 @@
 import { FAMILIES, rules } from "~/checker/registry";
+import { workedExampleResults } from "~/checker/worked-examples";
 import { AdvisoryNote } from "~/components/advisory-note";
 import type { Route } from "./+types/checks";
 
@@ -6,7 +7,9 @@ export const meta: Route.MetaFunction = () => [{ title: "Checks reference · Run
 
 /** Generated from the rule registry, so this page and the checker never disagree. */
 export function loader() {
+  const examples = workedExampleResults();
   return {
+    examples,
     families: Object.entries(FAMILIES).map(([family, title]) => ({
       family,
       title,
@@ -84,6 +87,33 @@ export default function ChecksReference({ loaderData }: Route.ComponentProps) {
               ))}
             </tbody>
           </table>
+          {loaderData.examples
+            .filter((e) => e.family === f.family)
+            .map((e) => (
+              <article key={e.id} id={e.id} className="card mt-4 max-w-4xl" data-testid="worked-example">
+                <h3 className="font-semibold">
+                  Worked example: {e.title} <code className="font-mono text-caption text-basalt-soft">{e.rule}</code>
+                </h3>
+                <p className="mt-2 text-caption font-semibold">What the authors wrote</p>
+                <ul className="list-disc pl-5 font-mono text-caption">
+                  {e.given.map((g) => (
+                    <li key={g}>{g}</li>
+                  ))}
+                </ul>
+                <p className="mt-2 text-caption font-semibold">What the checker does</p>
+                <ol className="list-decimal pl-5 text-caption">
+                  {e.steps.map((st) => (
+                    <li key={st}>{st}</li>
+                  ))}
+                </ol>
+                <p className="mt-2 text-caption font-semibold">What the checker says</p>
+                {e.flags.map((fl) => (
+                  <p key={fl.message} className={`mt-1 rounded px-2 py-1 text-caption ${severityClass[fl.severity]}`}>
+                    <span className="font-mono">{fl.severity}</span>: {fl.message}
+                  </p>
+                ))}
+              </article>
+            ))}
         </section>
       ))}
     </main>

@@ -2,12 +2,13 @@ import { eq } from "drizzle-orm";
 import { data, Form, href, Link } from "react-router";
 import { venues } from "~db/schema";
 import { requireDesk } from "~/access/page-guards.server";
-import { DEFAULT_POLICY } from "~/checker/policy";
 import { AdvisoryNote } from "~/components/advisory-note";
 import { deskQueue } from "~/review/desk.server";
 import { QUEUE_GROUPS } from "~/review/states";
-import { parsePolicyForm, POLICY_FIELDS } from "~/review/policy-form";
+import { PolicyFields } from "~/components/review/policy-fields";
+import { parsePolicyForm } from "~/review/policy-form";
 import type { Route } from "./+types/desk";
+import { decisionLabel } from "~/review/labels";
 
 export const meta: Route.MetaFunction = () => [{ title: "Editor's desk · Runproof" }];
 
@@ -54,7 +55,7 @@ export default function Desk({ loaderData, actionData }: Route.ComponentProps) {
                     </p>
                     <p className="text-caption text-basalt-soft">
                       Reviews: {q.invited} invited, {q.reviewing} in progress, {q.submitted} submitted
-                      {q.decision ? ` · decision: ${q.decision}` : ""}
+                      {q.decision ? ` · decision: ${decisionLabel(q.decision)}` : ""}
                     </p>
                   </li>
                 ))}
@@ -64,7 +65,7 @@ export default function Desk({ loaderData, actionData }: Route.ComponentProps) {
         })}
       </div>
       <section className="card mt-8" aria-labelledby="policy-h">
-        <h2 id="policy-h" className="text-lead">
+        <h2 id="policy-h" className="text-lead scroll-mt-4">
           Checker policy of this venue
         </h2>
         <p className="mt-1 text-caption text-basalt-soft">
@@ -76,23 +77,7 @@ export default function Desk({ loaderData, actionData }: Route.ComponentProps) {
           </p>
         ) : null}
         <Form method="post" className="mt-3 grid gap-3 md:grid-cols-3">
-          {POLICY_FIELDS.map((key) => {
-            const error = actionData?.fieldErrors?.[key];
-            const current = (venue.policy as Record<string, unknown>)[key];
-            return (
-              <div key={key} className="flex flex-col gap-1">
-                <label htmlFor={`policy-${key}`} className="text-caption font-semibold">
-                  {key} <span className="font-normal text-basalt-soft">(default {String(DEFAULT_POLICY[key])})</span>
-                </label>
-                <input id={`policy-${key}`} name={key} inputMode="decimal" defaultValue={current === undefined ? "" : String(current)} className="field-input" aria-invalid={error ? true : undefined} aria-describedby={error ? `policy-${key}-error` : undefined} />
-                {error ? (
-                  <p id={`policy-${key}-error`} className="field-error" role="alert">
-                    {error}
-                  </p>
-                ) : null}
-              </div>
-            );
-          })}
+          <PolicyFields policy={venue.policy as Record<string, unknown>} errors={actionData?.fieldErrors} />
           <button type="submit" className="btn self-end">
             Save policy
           </button>

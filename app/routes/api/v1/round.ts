@@ -26,6 +26,7 @@ export function loader({ request, context, params }: Route.LoaderArgs) {
       version: round.version,
       sentAt: iso(round.sentAt),
       checkedAt: iso(round.checkedAt),
+      checkError: round.checkError ?? null,
       runCount: runs?.n ?? 0,
       claimCount: claimCount?.n ?? 0,
       flagCounts: counts.total,

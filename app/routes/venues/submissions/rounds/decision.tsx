@@ -6,11 +6,11 @@ import { rounds } from "~db/schema";
 import { RichText } from "~/components/review/rich-text";
 import { asActionError } from "~/workspace/action-errors.server";
 import { responseSchema } from "~/review/forms";
-import { decisionLabel } from "~/review/states";
 import { releasedRemarks, responsesTo } from "~/review/remarks.server";
 import { saveRemarkResponse } from "~/review/revision.server";
 import { renderRichText } from "~/review/tiptap/render.server";
 import type { Route } from "./+types/decision";
+import { decisionLabel, roundStateLabel } from "~/review/labels";
 
 export const meta: Route.MetaFunction = () => [{ title: "Decision · Runproof" }];
 
@@ -72,7 +72,7 @@ export default function Decision({ loaderData: d }: Route.ComponentProps) {
       <p className="mt-1">{d.submission.title} · released {d.round.releasedAt} · <a className="underline" href={href("/venues/:venueId/submissions/:submissionId/rounds/:round/letter.pdf", at(d.round.number))}>Letter as PDF</a></p>
       {d.next ? (
         <p className="mt-2 rounded bg-lichen-wash p-2">
-          Round {d.next.number} is {d.next.state === "draft" ? "open for your revision" : d.next.state}:{" "}
+          Round {d.next.number} is {d.next.state === "draft" ? "open for your revision" : roundStateLabel(d.next.state).toLowerCase()}:{" "}
           <Link className="underline" to={href("/venues/:venueId/submissions/:submissionId/rounds/:round", at(d.next.number))}>open round {d.next.number}</Link> ·{" "}
           <Link className="underline" to={href("/venues/:venueId/submissions/:submissionId/rounds/:round/changes", at(d.next.number))}>changes since round {d.round.number}</Link>
         </p>

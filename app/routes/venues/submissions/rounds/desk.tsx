@@ -9,8 +9,8 @@ import { releaseDecision, saveDecisionDraft } from "~/review/decisions.server";
 import { editorialView } from "~/review/editorial.server";
 import { decisionSchema, inviteSchema, RECOMMENDATIONS, reinviteSchema } from "~/review/forms";
 import { conflictCheck, inviteReviewer, reinvitePrevious } from "~/review/invitations.server";
-import { decisionLabel, roundStateLabel } from "~/review/states";
 import type { Route } from "./+types/desk";
+import { auditEntryLabel, decisionLabel, invitationStateLabel, recommendationLabel, reviewStateLabel, roundStateLabel, verdictLabel } from "~/review/labels";
 
 export const meta: Route.MetaFunction = ({ data: d }) => [{ title: `Round ${d?.round.number ?? ""} · Editor's desk · Runproof` }];
 
@@ -99,7 +99,7 @@ export default function EditorialRound({ loaderData: d, actionData }: Route.Comp
         <ul className="mt-2 divide-y divide-rule" data-testid="invitations">
           {d.invites.map((i) => (
             <li key={i.id} className="py-1 text-caption">
-              {i.email} · {i.state} · due {new Date(i.dueAt).toISOString().slice(0, 10)}
+              {i.email} · {invitationStateLabel(i.state)} · due {new Date(i.dueAt).toISOString().slice(0, 10)}
             </li>
           ))}
         </ul>
@@ -146,9 +146,9 @@ export default function EditorialRound({ loaderData: d, actionData }: Route.Comp
         {d.reports.map((r) => (
           <article key={r.id} className="card mt-3" data-testid={`report-${r.number}`}>
             <h3 className="font-semibold">
-              Reviewer {r.number}: {r.name} ({r.email}) · {r.state}
+              Reviewer {r.number}: {r.name} ({r.email}) · {reviewStateLabel(r.state)}
               {r.state !== "submitted" && r.dueAt ? (new Date(r.dueAt).getTime() < Date.now() ? <span className="text-ember"> · overdue since {new Date(r.dueAt).toISOString().slice(0, 10)}</span> : ` · due ${new Date(r.dueAt).toISOString().slice(0, 10)}`) : ""}
-              {r.recommendation ? ` · recommends ${r.recommendation}` : ""}
+              {r.recommendation ? ` · recommends ${recommendationLabel(r.recommendation)}` : ""}
             </h3>
             {r.editorNote ? (
               <div className="mt-2 rounded bg-fjord-wash p-2">
@@ -156,7 +156,7 @@ export default function EditorialRound({ loaderData: d, actionData }: Route.Comp
                 <RichText html={r.editorNote} />
               </div>
             ) : null}
-            {r.verdicts.length ? <p className="mt-2 text-caption">Flags: {r.verdicts.map((v) => `${v.flag}: ${v.verdict}`).join("; ")}</p> : null}
+            {r.verdicts.length ? <p className="mt-2 text-caption">Flags: {r.verdicts.map((v) => `${v.flag}: ${verdictLabel(v.verdict)}`).join("; ")}</p> : null}
             <ul className="mt-2 flex flex-col gap-2">
               {r.remarks.map((m) => (
                 <li key={m.id} className="border-l-2 border-rule pl-2">
@@ -201,8 +201,7 @@ export default function EditorialRound({ loaderData: d, actionData }: Route.Comp
         <ol className="mt-2 text-caption" data-testid="audit-log">
           {d.audit.map((a) => (
             <li key={a.id}>
-              {new Date(a.at).toISOString().slice(0, 19).replace("T", " ")} UTC · {a.action} · {a.actor ?? "someone without an account"}
-              {Object.keys(a.detail).length ? ` · ${Object.entries(a.detail).map(([k, v]) => `${k} ${String(v)}`).join(", ")}` : ""}
+              {new Date(a.at).toISOString().slice(0, 19).replace("T", " ")} UTC · {auditEntryLabel(a.action, a.detail)} · {a.actor ?? "someone without an account"}
             </li>
           ))}
         </ol>

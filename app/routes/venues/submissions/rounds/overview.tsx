@@ -21,6 +21,7 @@ export async function loader(args: Route.LoaderArgs) {
   const url = new URL(args.request.url);
   const initial = Object.fromEntries(["severity", "rule", "run", "claim"].map((k) => [k, url.searchParams.get(k) ?? ""]));
   return {
+    checkError: round!.checkError,
     flags,
     runs: runs.map((r) => ({ runId: r.runId, label: r.label, E: r.E, RaRotating: r.RaRotating })),
     claims: claims.map((c) => ({ id: c.id, title: [c.figure, (c.record as { title?: string }).title].filter(Boolean).join(": ") || "claim" })),
@@ -52,6 +53,7 @@ export default function RoundOverview({ loaderData: d, actionData, params }: Rou
     <div className="grid gap-6 lg:grid-cols-[2fr_1fr]">
       <FlagsPanel
         flags={d.flags}
+        checkError={d.checkError}
         runLabels={d.runs.map((r) => r.label)}
         claims={d.claims}
         initial={d.initial}

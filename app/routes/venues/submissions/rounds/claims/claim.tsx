@@ -25,6 +25,7 @@ export async function loader(args: Route.LoaderArgs) {
   const claim = await claimOfRound(db, round.id, args.params.claimId);
   const [runs, flags] = await Promise.all([roundRunList(db, round.id), roundFlags(db, round.id)]);
   return {
+    checkError: round!.checkError,
     claim: { id: claim.id, version: claim.version, figure: claim.figure, statement: claim.statement, record: claim.record },
     runs: runs.map((r) => ({ id: r.runId, label: r.label })),
     flags: flags.filter((f) => f.claimId === claim.id),
@@ -78,6 +79,7 @@ export default function Claim({ loaderData: d, params }: Route.ComponentProps) {
       </section>
       <FlagsPanel
         flags={d.flags}
+        checkError={d.checkError}
         runLabels={d.runs.map((r) => r.label)}
         claims={[]}
         runHref={(label) => (runId.get(label) ? href("/venues/:venueId/submissions/:submissionId/rounds/:round/runs/:runId", { ...p, runId: runId.get(label)! }) : null)}

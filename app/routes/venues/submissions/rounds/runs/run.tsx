@@ -32,6 +32,7 @@ export async function loader(args: Route.LoaderArgs) {
     roundFlags(db, round.id),
   ]);
   return {
+    checkError: round!.checkError,
     run: { runId: run.runId, label: run.label, version: run.version, origin: run.origin, values: recordToValues(run.record), record: run.record },
     // A frozen round shows only the versions up to the one it used.
     history: history.filter((h) => h.version <= run.version || round.state === "draft").map((h) => ({ version: h.version, origin: h.origin, createdAt: h.createdAt.toISOString() })),
@@ -83,6 +84,7 @@ export default function Run({ loaderData: d, actionData, params }: Route.Compone
       </div>
       <FlagsPanel
         flags={d.flags}
+        checkError={d.checkError}
         runLabels={[d.run.label]}
         claims={[]}
         runHref={(_l, q) => {

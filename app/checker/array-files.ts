@@ -1,0 +1,134 @@
+/**
+ * Series and spectra from array files: HDF5 (through h5wasm, read from bytes in its
+ * in-memory file system, so no file I/O happens here) and NetCDF classic / 64-bit offset
+ * (through netcdfjs). A dataset map names which datasets/variables become which columns:
+ * `t,Re,Rm` reads datasets of those names; `Rm:diagnostics/rm` reads `diagnostics/rm` as Rm.
+ * The first column must be `t` (series) or `l` (spectrum); every dataset must be 1-D,
+ * numeric, finite, and as long as the first.
+ */
+import { CsvFormatError, type CsvKind } from "./csv.ts";
+import type { Columns } from "./schema.ts";
+
+export interface DatasetMapEntry {
+  column: string;
+  dataset: string;
+}
+
+const COLUMN = /^[A-Za-z_][A-Za-z0-9_.]*$/;
+const DATASET = /^[A-Za-z0-9_./-]{1,200}$/;
+
+/** `t,Re,Rm:diagnostics/rm` → entries; throws CsvFormatError with a hint. */
+export function parseDatasetMap(spec: string): DatasetMapEntry[] {
+  const parts = spec.split(",").map((s) => s.trim());
+  if (parts.length < 2 || parts.length > 200) throw new CsvFormatError(`a dataset map names 2 to 200 datasets, e.g. "t,kineticEnergy,Rm:diag/rm" (got "${spec.slice(0, 80)}")`);
+  return parts.map((p, i) => {
+    const [column = "", dataset = column] = p.split(":");
+    if (!COLUMN.test(column)) throw new CsvFormatError(`entry ${i + 1} of the dataset map is "${p}"; start it with a column name such as Re`);
+    if (!DATASET.test(dataset)) throw new CsvFormatError(`entry ${i + 1} of the dataset map names the dataset "${dataset}"; use its path inside the file, e.g. diag/rm`);
+    return { column, dataset };
+  });
+}
+
+const FIRST: Record<CsvKind, string> = { series: "t", spectrum: "l" };
+
+/** Checks the arrays and builds the columns; `where` names the file in messages. */
+export function columnsFromArrays(arrays: Array<[DatasetMapEntry, ArrayLike<number | bigint> | null, string]>, kind: CsvKind): Columns {
+  const first = arrays[0]?.[0].column;
+  if (first !== FIRST[kind]) throw new CsvFormatError(`the first column of a ${kind} must be "${FIRST[kind]}" (the map starts with "${first ?? ""}")`);
+  const out: Columns = {};
+  let n = -1;
+  for (const [entry, data, why] of arrays) {
+    if (!data) throw new CsvFormatError(`dataset "${entry.dataset}" (for column ${entry.column}) ${why}`);
+    if (out[entry.column]) throw new CsvFormatError(`column ${entry.column} appears twice in the map`);
+    // typed arrays of doubles or floats copy in one go; 64-bit integers go through Number
+    const col = data instanceof Float64Array || data instanceof Float32Array ? Array.from(data) : Array.from(data as ArrayLike<number | bigint>, Number);
+    for (let i = 0; i < col.length; i++) {
+      if (!Number.isFinite(col[i])) throw new CsvFormatError(`dataset "${entry.dataset}" has a non-finite value at index ${i} (${String(data[i])})`);
+    }
+    if (n < 0) n = col.length;
+    else if (col.length !== n) throw new CsvFormatError(`dataset "${entry.dataset}" has ${col.length} values but "${arrays[0]![0].dataset}" has ${n}; all datasets of the map must be equally long`);
+    out[entry.column] = col;
+  }
+  if (n < 2) throw new CsvFormatError(`the ${kind} has ${n} row(s); at least 2 are needed`);
+  const x = out[FIRST[kind]]!;
+  for (let i = 1; i < x.length; i++) {
+    if (!((x[i] as number) > (x[i - 1] as number))) throw new CsvFormatError(`dataset "${arrays[0]![0].dataset}" must increase (index ${i}: ${x[i]} after ${x[i - 1]})`);
+  }
+  return out;
+}
+
+type H5 = typeof import("h5wasm").default;
+let h5: Promise<H5> | undefined;
+let serial = 0;
+
+async function h5wasm(): Promise<H5> {
+  h5 ??= import("h5wasm").then(async (m) => {
+    await m.default.ready;
+    return m.default;
+  });
+  return h5;
+}
+
+const HDF5_SIGNATURE = [0x89, 0x48, 0x44, 0x46, 0x0d, 0x0a, 0x1a, 0x0a];
+
+/** The superblock's signature sits at 0, 512, 1024, 2048, … (HDF5 File Format Specification, "Superblock"). */
+export function looksLikeHdf5(bytes: Uint8Array): boolean {
+  for (let at = 0; at + 8 <= bytes.length; at = at === 0 ? 512 : at * 2) {
+    if (HDF5_SIGNATURE.every((b, i) => bytes[at + i] === b)) return true;
+  }
+  return false;
+}
+
+/** HDF5 bytes → columns. The bytes go to h5wasm's in-memory file system and are removed after. */
+export async function readHdf5Columns(bytes: Uint8Array, map: DatasetMapEntry[], kind: CsvKind): Promise<Columns> {
+  if (!looksLikeHdf5(bytes)) throw new CsvFormatError("the file is not HDF5 (no HDF5 signature); export it again from the code, or use CSV");
+  const lib = await h5wasm();
+  const { FS } = await lib.ready;
+  const name = `/runproof-${Date.now()}-${++serial}.h5`;
+  FS.writeFile(name, bytes);
+  let file: InstanceType<H5["File"]> | undefined;
+  try {
+    try {
+      file = new lib.File(name, "r");
+    } catch {
+      throw new CsvFormatError("the file is not HDF5 (its signature or structure could not be read); export it again from the code, or use CSV");
+    }
+    const paths = new Set(file.paths());
+    const arrays = map.map((entry): [DatasetMapEntry, ArrayLike<number | bigint> | null, string] => {
+      const path = entry.dataset.replace(/^\/+/, "");
+      if (!paths.has(path)) return [entry, null, `is not in the file; it holds ${[...paths].slice(0, 12).join(", ") || "nothing"}`];
+      const ds = file!.get(path);
+      if (!(ds instanceof lib.Dataset)) return [entry, null, `is not in the file; it holds ${file!.paths().slice(0, 12).join(", ") || "nothing"}`];
+      const shape = ds.shape ?? [];
+      const len = shape.reduce((a, b) => a * b, 1);
+      if (shape.filter((d) => d > 1).length > 1 || len !== Math.max(...shape, 0)) return [entry, null, `has shape [${shape.join(", ")}]; a column must be 1-D`];
+      const v = ds.value;
+      if (!v || typeof v !== "object" || !("length" in v) || typeof (v as ArrayLike<unknown>)[0] === "string") return [entry, null, `is not numeric (${JSON.stringify(ds.dtype)})`];
+      return [entry, v as ArrayLike<number | bigint>, ""];
+    });
+    return columnsFromArrays(arrays, kind);
+  } finally {
+    file?.close();
+    FS.unlink(name);
+  }
+}
+
+/** NetCDF classic or 64-bit offset bytes → columns (netcdfjs reads both). */
+export async function readNetcdfColumns(bytes: Uint8Array, map: DatasetMapEntry[], kind: CsvKind): Promise<Columns> {
+  const { NetCDFReader } = await import("netcdfjs");
+  let reader: InstanceType<typeof NetCDFReader>;
+  try {
+    reader = new NetCDFReader(bytes.buffer.slice(bytes.byteOffset, bytes.byteOffset + bytes.byteLength) as ArrayBuffer);
+  } catch (e) {
+    throw new CsvFormatError(`the file is not NetCDF classic or 64-bit offset (${(e as Error).message}); NetCDF-4 files are HDF5: give them the .h5 extension`);
+  }
+  const names = reader.variables.map((v) => v.name);
+  const arrays = map.map((entry): [DatasetMapEntry, ArrayLike<number | bigint> | null, string] => {
+    const v = reader.variables.find((x) => x.name === entry.dataset);
+    if (!v) return [entry, null, `is not a variable of the file; it holds ${names.slice(0, 12).join(", ") || "nothing"}`];
+    if (v.dimensions.length !== 1) return [entry, null, `has ${v.dimensions.length} dimensions; a column must have one`];
+    if (v.type === "char") return [entry, null, "holds characters, not numbers"];
+    return [entry, reader.getDataVariable(v) as number[], ""];
+  });
+  return columnsFromArrays(arrays, kind);
+}
