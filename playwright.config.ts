@@ -1,3 +1,4 @@
+import { randomBytes } from "node:crypto";
 import { defineConfig } from "@playwright/test";
 
 const port = Number(process.env.E2E_PORT ?? 3100);
@@ -7,6 +8,8 @@ const databaseUrl =
 
 const serverEnv = {
   NODE_ENV: "production",
+  // Production refuses the public development secret; each run signs with its own.
+  AUTH_SECRET: process.env.AUTH_SECRET ?? randomBytes(32).toString("hex"),
   APP_URL: baseURL,
   DATABASE_URL: databaseUrl,
   AUTH_RATE_LIMIT: "false",
@@ -42,7 +45,7 @@ export default defineConfig({
   webServer: [
     {
       name: "web",
-      command: "node ./node_modules/@react-router/serve/bin.js build/server/index.js",
+      command: "node scripts/serve.mjs",
       url: `${baseURL}/healthz`,
       reuseExistingServer: false,
       timeout: 60_000,

@@ -3,7 +3,9 @@ import tailwindcss from "@tailwindcss/vite";
 import { defineConfig } from "vite";
 import { fileURLToPath } from "node:url";
 
-export default defineConfig({
+export default defineConfig(({ isSsrBuild }) => ({
+  // The server bundle is our own HTTP app (server/index.ts), which wraps React Router's build.
+  build: isSsrBuild ? { rollupOptions: { input: "./server/index.ts" } } : undefined,
   plugins: [tailwindcss(), reactRouter()],
   resolve: {
     alias: {
@@ -12,4 +14,4 @@ export default defineConfig({
     },
   },
   server: { host: "127.0.0.1", port: 5173 },
-});
+}));

@@ -15,14 +15,18 @@ export const dbContext = createContext<Database>();
 
 // The web process runs no jobs: outbox delivery, reminders, digests and round checks run in
 // `npm run worker` processes (app/jobs/boss.server.ts). It only queues round checks.
-if (!g.__runproofExit) {
+
+/** Stops the job sender and closes the pool; the server entry calls it once requests have drained. */
+export async function closeDatabaseAndJobs(): Promise<void> {
+  await stopJobSender().catch(() => {});
+  await sqlClient.end({ timeout: 5 });
+}
+
+// Under the server entry (scripts/serve.mjs) the server drains requests first and then calls
+// closeDatabaseAndJobs; under the development server this module stops the process itself.
+if (!g.__runproofExit && !(globalThis as { __runproofServerOwnsShutdown?: boolean }).__runproofServerOwnsShutdown) {
   g.__runproofExit = true;
   for (const signal of ["SIGTERM", "SIGINT"] as const) {
-    process.once(signal, () => {
-      void stopJobSender()
-        .catch(() => {})
-        .then(() => sqlClient.end({ timeout: 5 }))
-        .finally(() => process.exit(0));
-    });
+    process.once(signal, () => void closeDatabaseAndJobs().catch(() => {}).finally(() => process.exit(0)));
   }
 }

@@ -1,7 +1,7 @@
 import { type RouteConfig, index, layout, prefix, route } from "@react-router/dev/routes";
 
 export default [
-  // Resource routes (no UI): auth endpoints, the public API, JSON Schemas, health.
+  // Resource routes (no UI): auth endpoints, the public API, JSON Schemas (health, readiness and metrics are the server entry's).
   route("api/auth/*", "routes/api/auth.ts"),
   ...prefix("api/v1", [
     route("check", "routes/api/v1/check.ts"),
@@ -24,7 +24,6 @@ export default [
     route("run-1.json", "routes/schemas/run-1.ts"),
     route("claim-1.json", "routes/schemas/claim-1.ts"),
   ]),
-  route("healthz", "routes/healthz.ts"),
 
   layout("routes/shell.tsx", [
     index("routes/home.tsx"),

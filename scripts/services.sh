@@ -7,7 +7,7 @@
 #   down    stop everything this checkout started (tolerates things not running)
 #   status  print each service up/down; exit 0 only if all are up
 #
-# Ports/env: PGPORT_RUNPROOF (54329), SMTP_PORT (1025), MAILDEV_WEB_PORT (1080),
+# Ports/env: PGPORT_RUNPROOF (54329), SMTP_PORT (1025), MAILDEV_WEB_PORT (1080, and MAIL_CATCHER_URL from it),
 # S3_PORT (4569). See scripts/lib/common.sh for the exported variables and helpers.
 set -euo pipefail
 

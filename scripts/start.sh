@@ -20,6 +20,9 @@ trap stop_started EXIT
 
 export DATABASE_URL="${DATABASE_URL:-$RUNPROOF_DATABASE_URL}"
 export APP_URL="${APP_URL:-http://127.0.0.1:${PORT:-3000}}"
+# Production refuses the public development secret: make a random one on first run and keep it.
+if [[ -z "${AUTH_SECRET:-}" ]]; then AUTH_SECRET="$(rp_ensure_auth_secret)"; fi
+export AUTH_SECRET
 node_modules/.bin/tsx database/migrate.ts
 node_modules/.bin/tsx database/seed.ts
 node_modules/.bin/react-router build >/dev/null
@@ -27,7 +30,7 @@ node_modules/.bin/react-router build >/dev/null
 node_modules/.bin/tsx scripts/print-welcome.ts
 # The web server and one job worker (round checks, mail, reminders, digests); more workers can
 # be started beside them with `npm run worker`.
-PORT="${PORT:-3000}" HOST=127.0.0.1 NODE_ENV=production node ./node_modules/@react-router/serve/bin.js build/server/index.js &
+PORT="${PORT:-3000}" HOST="${HOST:-127.0.0.1}" NODE_ENV=production node scripts/serve.mjs &
 server=$!
 NODE_ENV=production node --max-old-space-size=768 --import tsx scripts/worker.ts &
 worker=$!

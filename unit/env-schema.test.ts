@@ -1,5 +1,6 @@
 import { describe, expect, it } from "vitest";
-import { parseEnv } from "~/config/env-schema";
+import { readFileSync } from "node:fs";
+import { KNOWN_AUTH_SECRETS, parseEnv } from "~/config/env-schema";
 
 describe("configuration validation", () => {
   it("works with no settings at all (local defaults)", () => {
@@ -30,5 +31,36 @@ describe("configuration validation", () => {
   it("reads boolean flags", () => {
     expect(parseEnv({ AUTH_RATE_LIMIT: "false" }).AUTH_RATE_LIMIT).toBe(false);
     expect(() => parseEnv({ AUTH_RATE_LIMIT: "maybe" })).toThrow(/AUTH_RATE_LIMIT/);
+  });
+});
+
+describe("the signing secret in production", () => {
+  const strong = "a3f1c9e07b5d42e8a61f0c3b9d7e5a2f4c8b6d0e1a9f3c7b5d2e8a4f6c0b1d3e";
+
+  it("refuses the public development default, naming the variable and not printing the secret", () => {
+    let message = "";
+    try {
+      parseEnv({ NODE_ENV: "production" });
+    } catch (error) {
+      message = (error as Error).message;
+    }
+    expect(message).toMatch(/AUTH_SECRET: is the public development default/);
+    expect(message).not.toContain(KNOWN_AUTH_SECRETS[0]);
+  });
+
+  it("refuses the example value copied from .env.example", () => {
+    // The example file is what people copy; its value is public too.
+    const example = readFileSync(".env.example", "utf8").match(/^AUTH_SECRET=(.*)$/m)?.[1];
+    expect(example).toBeTruthy();
+    expect(() => parseEnv({ NODE_ENV: "production", AUTH_SECRET: example })).toThrow(/AUTH_SECRET/);
+  });
+
+  it("refuses a short secret (common practice: at least 256 bits, 32 characters)", () => {
+    expect(() => parseEnv({ NODE_ENV: "production", AUTH_SECRET: "x".repeat(31) })).toThrow(/at least 32 characters/);
+  });
+
+  it("accepts a long random secret, and the default outside production", () => {
+    expect(parseEnv({ NODE_ENV: "production", AUTH_SECRET: strong }).AUTH_SECRET).toBe(strong);
+    expect(parseEnv({ NODE_ENV: "test" }).AUTH_SECRET).toBe(KNOWN_AUTH_SECRETS[0]);
   });
 });

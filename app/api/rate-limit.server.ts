@@ -1,22 +1,15 @@
-import { RateLimiterMemory, RateLimiterRes } from "rate-limiter-flexible";
 import { env } from "~/config/env.server";
+import { db } from "~/db.server";
+import { takeAttempt } from "~/throttle/limits.server";
 
 /**
  * Calls per token (or per signed-in person, for the app's own fetches) per minute. The counters
- * live in this process's memory: with several server instances each one counts on its own, so
- * the effective limit is the configured one times the number of instances (see docs/api.md).
+ * live in PostgreSQL, so every server process counts against the same limit.
  */
-const limiter = new RateLimiterMemory({ points: env.API_RATE_LIMIT_PER_MINUTE, duration: 60 });
-
 export const RATE_LIMIT_PER_MINUTE = env.API_RATE_LIMIT_PER_MINUTE;
+const rule = { name: "api", points: RATE_LIMIT_PER_MINUTE, seconds: 60 };
 
 /** Counts one call; returns null when allowed, else the seconds until the next call is allowed. */
 export async function consumeRateLimit(key: string): Promise<number | null> {
-  try {
-    await limiter.consume(key);
-    return null;
-  } catch (rejected) {
-    if (rejected instanceof RateLimiterRes) return Math.max(1, Math.ceil(rejected.msBeforeNext / 1000));
-    throw rejected;
-  }
+  return takeAttempt(db, [{ rule, key }]);
 }

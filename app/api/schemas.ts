@@ -158,7 +158,7 @@ export const runSchemaOut = runSummarySchema
   .meta({ id: "Run" });
 
 export const runUpdateSchema = z
-  .object({ expectedVersion: z.number().int().min(1).describe("the version you edited; 409 when the run has moved on"), record: runRecordSchema })
+  .object({ expectedVersion: z.number().int().min(1).max(1_000_000).describe("the version you edited; 409 when the run has moved on"), record: runRecordSchema })
   .strict()
   .meta({ id: "RunUpdate", description: "Either this object, or a bare run record with the version in an If-Match header." });
 
@@ -185,7 +185,7 @@ export const claimWriteSchema = z
   .meta({ id: "ClaimWrite" });
 
 export const claimUpdateSchema = claimWriteSchema
-  .extend({ version: z.number().int().min(1).describe("the version you edited; 409 when the claim has moved on") })
+  .extend({ version: z.number().int().min(1).max(1_000_000).describe("the version you edited; 409 when the claim has moved on") })
   .meta({ id: "ClaimUpdate" });
 
 export const claimOutSchema = z

@@ -1,5 +1,6 @@
 import { href } from "react-router";
 import { z } from "zod";
+import { safeLocalPath } from "~/lib/edge-input";
 import { parseOrcid } from "~/lib/orcid";
 
 const email = z.email("Enter an e-mail address such as name@institute.example.").trim().toLowerCase();
@@ -50,5 +51,5 @@ export const profileSchema = z.object({
 
 /** Only same-site paths may follow sign-in; anything else falls back to the dashboard. */
 export function safeNext(next: string | null | undefined) {
-  return next && next.startsWith("/") && !next.startsWith("//") ? next : href("/dashboard");
+  return safeLocalPath(next, href("/dashboard"));
 }

@@ -5,7 +5,7 @@
  * the line number. Streaming input: see csv-stream.ts.
  */
 import { CsvError } from "csv-parse/sync";
-import type { Columns } from "./schema.ts";
+import { LIMITS, type Columns } from "./schema.ts";
 
 export type CsvKind = "series" | "spectrum";
 /** Columns as typed arrays, as the parser fills them. */
@@ -20,11 +20,12 @@ export class CsvFormatError extends Error {
   }
 }
 
-/** Options of the former csv-parse reader, kept for callers that still parse with csv-parse. */
-export const CSV_OPTIONS = { info: true, skip_empty_lines: true, trim: true, bom: true } as const;
+// max_record_size bounds one line (a header of a million columns is refused at 64 KiB, not parsed).
+export const CSV_OPTIONS = { info: true, skip_empty_lines: true, trim: true, bom: true, max_record_size: 64 * 1024 } as const;
 
 /** Bounds of one attachment (a plausible range, and no input sets an unbounded allocation). */
-export const CSV_LIMITS = { columns: 64, rows: 2_000_000 } as const;
+/** The formats' ceilings (app/checker/schema.ts LIMITS), applied while reading. */
+export const CSV_LIMITS = { columns: LIMITS.seriesColumns, rows: LIMITS.seriesRows } as const;
 
 const FIRST: Record<CsvKind, string> = { series: "t", spectrum: "l" };
 

@@ -10,10 +10,34 @@ import { isStatable, suggestQuantity } from "./quantity-keys.ts";
 export { suggestQuantity };
 import { parseStated, StatedValueError } from "./stated.ts";
 
-const num = () => z.number();
-const pos = () => z.number().positive();
-const nonneg = () => z.number().nonnegative();
-const text = (what: string) => z.string().min(1).describe(what);
+/**
+ * Plausible ranges of the formats' sizes: every count that sets how much work a check does has a
+ * ceiling, documented in the JSON Schemas (maximum / maxItems / maxLength).
+ */
+export const LIMITS = {
+  /** Radial grid points; production dynamo runs use a few hundred. */
+  radialPoints: 4096,
+  /** Spherical-harmonic truncation degree and order. */
+  degree: 4096,
+  /** Rows of an attached series or spectrum. */
+  seriesRows: 200_000,
+  /** Columns of an attached series or spectrum, `t` / `l` included. */
+  seriesColumns: 32,
+  /** Runs in one check or claim. */
+  runs: 200,
+  /** Characters of a label, name or other short text. */
+  shortText: 200,
+  /** Characters of a title or a stated value. */
+  longText: 2000,
+  /** Magnitude of any other number (far beyond any physical value in these records). */
+  magnitude: 1e30,
+} as const;
+
+const num = () => z.number().min(-LIMITS.magnitude).max(LIMITS.magnitude);
+const pos = () => z.number().positive().max(LIMITS.magnitude);
+const nonneg = () => z.number().nonnegative().max(LIMITS.magnitude);
+const short = () => z.string().max(LIMITS.shortText);
+const text = (what: string) => z.string().min(1).max(LIMITS.shortText).describe(what);
 
 const boundarySide = z
   .object({
@@ -25,7 +49,7 @@ const boundarySide = z
   .partial()
   .strict();
 
-const dimensional = (what: string) => z.string().min(1).describe(`${what}, a number with a unit`);
+const dimensional = (what: string) => z.string().min(1).max(LIMITS.shortText).describe(`${what}, a number with a unit`);
 
 export const materialSchema = z
   .object({
@@ -47,7 +71,7 @@ export const runSchema = z
   .object({
     format: z.literal("runproof.run/1"),
     label: text("label, unique within a submission"),
-    software: z.object({ name: z.string(), version: z.string() }).partial().strict().optional(),
+    software: z.object({ name: short(), version: short() }).partial().strict().optional(),
     geometry: z.object({ radiusRatio: z.number().gt(0).lt(1).describe("chi = r_i / r_o") }).strict(),
     conventions: z
       .object({
@@ -75,17 +99,17 @@ export const runSchema = z
       .optional(),
     resolution: z
       .object({
-        radialPoints: z.number().int().min(2),
+        radialPoints: z.number().int().min(2).max(LIMITS.radialPoints),
         radialGrid: z.enum(["chebyshev", "uniform", "stretched"]),
-        maxDegree: z.number().int().min(1),
-        maxOrder: z.number().int().min(0),
+        maxDegree: z.number().int().min(1).max(LIMITS.degree),
+        maxOrder: z.number().int().min(0).max(LIMITS.degree),
         hyperdiffusion: z.boolean(),
       })
       .partial()
       .strict()
       .optional(),
     time: z
-      .object({ scheme: z.string(), step: pos(), start: num(), end: num() })
+      .object({ scheme: short(), step: pos(), start: num(), end: num() })
       .partial()
       .strict()
       .optional()
@@ -189,15 +213,19 @@ export const claimSchema = claimObject.superRefine((claim, ctx) => {
 
 export type ClaimRecord = z.infer<typeof claimSchema>;
 
-const columns = z.record(z.string(), z.array(z.number()));
+const columns = z
+  .record(z.string().max(LIMITS.shortText), z.array(z.number()).max(LIMITS.seriesRows))
+  .refine((c) => Object.keys(c).length <= LIMITS.seriesColumns, { message: `at most ${LIMITS.seriesColumns} columns` });
+const perRun = <T extends z.ZodType>(what: T) =>
+  z.record(z.string().max(LIMITS.shortText), what).refine((r) => Object.keys(r).length <= LIMITS.runs, { message: `at most ${LIMITS.runs} runs` });
 
 export const checkInputSchema = z
   .object({
-    runs: z.array(runSchema).min(1),
+    runs: z.array(runSchema).min(1).max(LIMITS.runs),
     claim: claimSchema.optional(),
     policy: policySchema.optional(),
-    series: z.record(z.string(), columns).optional(),
-    spectra: z.record(z.string(), columns).optional(),
+    series: perRun(columns).optional(),
+    spectra: perRun(columns).optional(),
   })
   .strict();
 

@@ -1,6 +1,10 @@
 import { z } from "zod";
 
 const port = z.coerce.number().int().min(1).max(65535);
+
+/** The development default and the example value: public, so a production server must never sign with them. */
+export const KNOWN_AUTH_SECRETS: readonly string[] = ["runproof-local-development-secret-change-me-please"];
+const DEFAULT_AUTH_SECRET = KNOWN_AUTH_SECRETS[0]!;
 const flag = z
   .enum(["true", "false", "1", "0", "on", "off"])
   .transform((v) => v === "true" || v === "1" || v === "on");
@@ -16,7 +20,7 @@ export const envSchema = z.object({
   AUTH_SECRET: z
     .string()
     .min(32, "must be at least 32 characters; generate one with `openssl rand -hex 32`")
-    .default("runproof-local-development-secret-change-me-please"),
+    .default(DEFAULT_AUTH_SECRET),
   AUTH_RATE_LIMIT: flag.default(true),
   SMTP_HOST: z.string().min(1).default("127.0.0.1"),
   SMTP_PORT: port.default(1025),
@@ -36,7 +40,28 @@ export const envSchema = z.object({
   UPLOAD_LIMIT_MB: z.coerce.number().positive().default(25),
   /** Public API calls per token per minute, counted per server process. */
   API_RATE_LIMIT_PER_MINUTE: z.coerce.number().int().min(1).default(120),
+  /**
+   * The proxy in front of the server whose X-Forwarded-For is believed (Express "trust proxy" syntax:
+   * "loopback", an address or subnet, or a hop count). Unset: the client address is the socket's.
+   */
+  TRUST_PROXY: z.string().trim().max(200).optional(),
+  /** A bearer token that opens /metrics to non-loopback callers; unset, only loopback may read it. */
+  METRICS_TOKEN: z.string().min(16, "must be at least 16 characters").optional(),
+  /** Largest form or JSON body (bytes) a page action reads; uploads have UPLOAD_LIMIT_MB. */
+  FORM_BODY_LIMIT_KB: z.coerce.number().int().min(8).max(10_240).default(256),
+}).superRefine((value, ctx) => {
+  // A production server signing sessions and e-mail links with a public secret lets anyone forge them.
+  if (value.NODE_ENV === "production" && KNOWN_AUTH_SECRETS.includes(value.AUTH_SECRET)) {
+    ctx.addIssue({
+      code: "custom",
+      path: ["AUTH_SECRET"],
+      message:
+        "is the public development default and must not be used in production; set a random value (`openssl rand -hex 32`) or start with `npm start`, which creates one",
+    });
+  }
 });
+
+const SECRET_NAMES = new Set(["AUTH_SECRET", "S3_SECRET_ACCESS_KEY", "METRICS_TOKEN"]);
 
 export type Env = z.infer<typeof envSchema>;
 
@@ -47,9 +72,13 @@ export function parseEnv(source: Record<string, string | undefined>): Env {
   );
   const result = envSchema.safeParse(cleaned);
   if (result.success) return result.data;
-  const lines = result.error.issues.map(
-    (issue) => `  ${issue.path.join(".")}: ${issue.message} (got ${JSON.stringify(cleaned[String(issue.path[0])] ?? null)})`,
-  );
+  const lines = result.error.issues.map((issue) => {
+    const name = String(issue.path[0]);
+    const got = cleaned[name];
+    // Secrets never reach a log: only their length is shown.
+    const shown = SECRET_NAMES.has(name) && got !== undefined ? `${got.length} characters` : JSON.stringify(got ?? null);
+    return `  ${issue.path.join(".")}: ${issue.message} (got ${shown})`;
+  });
   throw new Error(
     `Runproof cannot start: the configuration is invalid.\n${lines.join("\n")}\nFix these variables in .env (see .env.example) or the environment.`,
   );

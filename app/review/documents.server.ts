@@ -8,6 +8,7 @@ import type { RoundContext } from "./context.server";
 import { decisionLetterPdf } from "./pdf/letter.server";
 import { reviewerPacketPdf } from "./pdf/packet.server";
 import { releasedRemarks } from "./remarks.server";
+import { contentDisposition } from "~/lib/content-disposition";
 
 export async function roundFlags(db: Db, roundId: string) {
   return db.select().from(flags).where(eq(flags.roundId, roundId)).orderBy(asc(flags.severity), asc(flags.rule), asc(flags.runLabel));
@@ -55,6 +56,6 @@ export async function letterFor(db: Db, ctx: RoundContext) {
 
 export function pdfResponse(bytes: Uint8Array, filename: string) {
   return new Response(Buffer.from(bytes), {
-    headers: { "content-type": "application/pdf", "content-disposition": `inline; filename="${filename}"`, "cache-control": "private, no-store" },
+    headers: { "content-type": "application/pdf", "content-disposition": contentDisposition("inline", filename), "cache-control": "private, no-store" },
   });
 }

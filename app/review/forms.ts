@@ -1,4 +1,5 @@
 import { z } from "zod";
+import { findBadText } from "~/lib/edge-input";
 import { OUTCOME_CHOICES } from "./labels";
 
 /** Shared (client and server) schemas of the review cycle's forms. */
@@ -7,6 +8,11 @@ const jsonDoc = z
   .transform((s, ctx) => {
     try {
       const doc = JSON.parse(s);
+      const bad = findBadText(doc);
+      if (bad) {
+        ctx.addIssue({ code: "custom", message: `The text ${bad.message.replace(/^\S+ /, "")}.` });
+        return z.NEVER;
+      }
       if (doc && typeof doc === "object" && doc.type === "doc") return doc as Record<string, unknown>;
     } catch {}
     ctx.addIssue({ code: "custom", message: "The text could not be read; reload the page and write it again." });
@@ -25,7 +31,7 @@ export const decisionSchema = z.object({
   intent: z.enum(["save-decision", "release"]),
   decision: z.enum(["accept", "minor-revision", "major-revision", "reject"], { message: "Choose a decision." }),
   letter: jsonDoc,
-  version: z.coerce.number().int(),
+  version: z.coerce.number().int().min(0).max(1_000_000),
 });
 
 export const verdictSchema = z.object({

@@ -1,5 +1,5 @@
 import { data } from "react-router";
-import { InvalidInput, PayloadTooLarge, StateConflict } from "./types";
+import { InvalidInput, PayloadTooLarge, StateConflict, TooManyRequests } from "./types";
 
 export type ServiceError = { error: { message: string; issues: { path: string; message: string }[] } };
 
@@ -11,6 +11,7 @@ export function serviceError(e: unknown, extra: Record<string, unknown> = {}) {
   if (e instanceof InvalidInput) return data({ ...extra, error: { message: e.message, issues: e.issues } }, { status: 400 });
   if (e instanceof StateConflict) return data({ ...extra, error: { message: e.message, issues: [] } }, { status: 409 });
   if (e instanceof PayloadTooLarge) return data({ ...extra, error: { message: e.message, issues: [] } }, { status: 413 });
+  if (e instanceof TooManyRequests) return data({ ...extra, error: { message: e.message, issues: [] } }, { status: 429 });
   throw e;
 }
 

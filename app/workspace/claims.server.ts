@@ -28,6 +28,10 @@ export async function createClaim(db: Db, roundId: string, input: ClaimInput) {
 
 /** Optimistic concurrency: the update applies only to the version the editor of the form saw. */
 export async function updateClaim(db: Db, roundId: string, claimId: string, expectedVersion: number, input: ClaimInput) {
+  // A version outside what can exist (not a whole number, or past the integer column) is stale too.
+  if (!Number.isSafeInteger(expectedVersion) || expectedVersion < 1 || expectedVersion >= 2 ** 31 - 1) {
+    throw new StateConflict("This form names a version of the claim that does not exist: reload the page and apply your change again.");
+  }
   const record = parseClaimRecord(input.record);
   const [row] = await db
     .update(claims)

@@ -7,6 +7,7 @@ import { markRoundChanged, requestRecheck } from "./recheck.server";
 import { draftRoundById } from "./rounds.server";
 import { createRun, parseRunRecord, reviseRun, type RunOrigin } from "./runs.server";
 import { InvalidInput } from "./types";
+import { findBadText } from "~/lib/edge-input";
 
 /**
  * The workspace's writes: each validates and writes in one transaction that also marks the
@@ -39,8 +40,9 @@ export async function editRun(db: Database, opts: { runId: string; roundId: stri
 
 /** JSON text → record, with a clear message on a syntax error (position and what to fix). */
 export function parseJsonText(text: string): unknown {
+  let parsed: unknown;
   try {
-    return JSON.parse(text);
+    parsed = JSON.parse(text);
   } catch (e) {
     const msg = e instanceof Error ? e.message : String(e);
     const pos = /position (\d+)/.exec(msg);
@@ -51,6 +53,9 @@ export function parseJsonText(text: string): unknown {
     }
     throw new InvalidInput("The file is not valid JSON; nothing was stored.", [{ path: where, message: `${msg}. Check for a missing comma, quote or bracket.` }]);
   }
+  const bad = findBadText(parsed);
+  if (bad) throw new InvalidInput(`The file's text cannot be stored: ${bad.message}; nothing was stored.`, [bad]);
+  return parsed;
 }
 
 export async function savedKeyMap(db: Database, submissionId: string): Promise<KeyMap | null> {

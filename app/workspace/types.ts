@@ -24,3 +24,8 @@ export class InvalidInput extends Error {
 export class PayloadTooLarge extends Error {
   readonly status = 413;
 }
+
+/** Too many requests of one kind from one address or for one person; nothing was done. */
+export class TooManyRequests extends Error {
+  readonly status = 429;
+}

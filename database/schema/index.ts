@@ -10,3 +10,4 @@ export * from "./audit";
 export * from "./tokens";
 export * from "./mail";
 export * from "./files";
+export * from "./throttle";

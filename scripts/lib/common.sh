@@ -36,6 +36,9 @@ PG_SUPERUSER=postgres                   # created by our initdb -U, whatever the
 SMTP_PORT="${SMTP_PORT:-1025}"
 MAILDEV_WEB_PORT="${MAILDEV_WEB_PORT:-1080}"
 S3_PORT="${S3_PORT:-4569}"
+E2E_PORT="${E2E_PORT:-3100}"            # the production build under Playwright
+# Derived, never set on its own: a stale value would send tests to another checkout's catcher.
+MAIL_CATCHER_URL="http://127.0.0.1:$MAILDEV_WEB_PORT"
 S3_BUCKET="${S3_BUCKET:-runproof}"
 S3_ENDPOINT="http://127.0.0.1:$S3_PORT"
 S3_ACCESS_KEY_ID=S3RVER                 # s3rver's hard-wired credentials
@@ -44,8 +47,26 @@ S3_REGION="${S3_REGION:-us-east-1}"
 RUNPROOF_DATABASE_URL="postgres://$PG_APP_USER:$PG_APP_PASSWORD@$PG_HOST:$PG_PORT/$PG_APP_DB"
 RUNPROOF_TEST_DATABASE_URL="postgres://$PG_APP_USER:$PG_APP_PASSWORD@$PG_HOST:$PG_PORT/$PG_TEST_DB"
 export PG_HOST PG_PORT PG_APP_USER PG_APP_PASSWORD PG_APP_DB PG_TEST_DB PG_SUPERUSER \
-  SMTP_PORT MAILDEV_WEB_PORT S3_PORT S3_BUCKET S3_ENDPOINT S3_ACCESS_KEY_ID \
+  SMTP_PORT MAILDEV_WEB_PORT MAIL_CATCHER_URL E2E_PORT S3_PORT S3_BUCKET S3_ENDPOINT S3_ACCESS_KEY_ID \
   S3_SECRET_ACCESS_KEY S3_REGION RUNPROOF_DATABASE_URL RUNPROOF_TEST_DATABASE_URL
+
+# --- secrets ------------------------------------------------------------------------
+
+# rp_ensure_auth_secret [FILE] -- print the server's signing secret, creating a random one
+# (256 bits, hex) in FILE on first use and reusing it afterwards. Only the owner may read it.
+rp_ensure_auth_secret() {
+  local file="${1:-$RUNPROOF_DATA/auth-secret}" secret=""
+  if [[ -s "$file" ]]; then
+    secret="$(tr -d '[:space:]' <"$file")"
+  fi
+  if (( ${#secret} < 32 )); then
+    mkdir -p -- "$(dirname -- "$file")"
+    secret="$(od -An -N32 -tx1 /dev/urandom | tr -d ' \n')"
+    (umask 077 && printf '%s\n' "$secret" >"$file.tmp") && mv -f -- "$file.tmp" "$file"
+  fi
+  chmod 600 -- "$file" 2>/dev/null || true
+  printf '%s\n' "$secret"
+}
 
 # --- messages ----------------------------------------------------------------------
 
@@ -228,7 +249,7 @@ DATABASE_URL=$RUNPROOF_DATABASE_URL
 TEST_DATABASE_URL=$RUNPROOF_TEST_DATABASE_URL
 SMTP_HOST=127.0.0.1
 SMTP_PORT=$SMTP_PORT
-MAIL_CATCHER_URL=http://127.0.0.1:$MAILDEV_WEB_PORT
+MAIL_CATCHER_URL=$MAIL_CATCHER_URL
 S3_ENDPOINT=$S3_ENDPOINT
 S3_BUCKET=$S3_BUCKET
 S3_REGION=$S3_REGION

@@ -2,9 +2,10 @@ import { getFormProps } from "@conform-to/react";
 import { useCheckedForm } from "~/components/checked-form";
 import { getZodConstraint, parseWithZod } from "@conform-to/zod/v4";
 import { data, Form } from "react-router";
+import { isAPIError } from "better-auth/api";
 import { auth } from "~/auth/auth.server";
 import { forgotSchema } from "~/auth/forms";
-import { TextField } from "~/components/field";
+import { FormErrors, TextField } from "~/components/field";
 import type { Route } from "./+types/forgot-password";
 
 export const meta: Route.MetaFunction = () => [{ title: "Forgot password · Runproof" }];
@@ -13,10 +14,18 @@ export async function action({ request }: Route.ActionArgs) {
   const submission = parseWithZod(await request.formData(), { schema: forgotSchema });
   if (submission.status !== "success") return data({ result: submission.reply(), sent: false }, { status: 400 });
   // The same answer whether or not the address has an account, so it cannot be probed.
-  await auth.api.requestPasswordReset({
-    body: { email: submission.value.email, redirectTo: "/reset-password" },
-    headers: request.headers,
-  });
+  try {
+    await auth.api.requestPasswordReset({
+      body: { email: submission.value.email, redirectTo: "/reset-password" },
+      headers: request.headers,
+    });
+  } catch (error) {
+    // Too many mails asked for from this address or for this account: nothing is sent.
+    if (isAPIError(error) && error.statusCode === 429) {
+      return data({ result: submission.reply({ formErrors: [error.message] }), sent: false }, { status: 429 });
+    }
+    throw error;
+  }
   return { result: submission.reply({ resetForm: true }), sent: true };
 }
 
@@ -39,6 +48,7 @@ export default function ForgotPassword({ actionData }: Route.ComponentProps) {
         <button type="submit" className="btn self-start">
           Send me a link
         </button>
+        <FormErrors errors={form.errors} id={form.errorId} />
       </Form>
     </main>
   );

@@ -3,7 +3,7 @@ import { useCheckedForm } from "~/components/checked-form";
 import { getZodConstraint, parseWithZod } from "@conform-to/zod/v4";
 import { data, Form, Link, redirect, useSearchParams, href } from "react-router";
 import { auth } from "~/auth/auth.server";
-import { authErrorOf, forwardCookies } from "~/auth/cookies.server";
+import { apiErrorResponse, authErrorOf, forwardCookies } from "~/auth/cookies.server";
 import { safeNext, signInSchema } from "~/auth/forms";
 import { sessionUser } from "~/access/session.server";
 import { FormErrors, TextField } from "~/components/field";
@@ -22,19 +22,21 @@ export async function action({ request }: Route.ActionArgs) {
   if (submission.status !== "success") {
     return data({ result: submission.reply({ hideFields: ["password"] }) }, { status: 400 });
   }
-  const res = await auth.api.signInEmail({
-    // The callback is where a fresh confirmation link (sent when an unconfirmed person signs in) lands.
-    body: { email: submission.value.email, password: submission.value.password, callbackURL: safeNext(submission.value.next) },
-    headers: request.headers,
-    asResponse: true,
-  });
+  const res = await auth.api
+    .signInEmail({
+      // The callback is where a fresh confirmation link (sent when an unconfirmed person signs in) lands.
+      body: { email: submission.value.email, password: submission.value.password, callbackURL: safeNext(submission.value.next) },
+      headers: request.headers,
+      asResponse: true,
+    })
+    .catch(apiErrorResponse);
   if (!res.ok) {
     const err = await authErrorOf(res);
     const message =
       err.code === "EMAIL_NOT_VERIFIED"
         ? "Confirm your e-mail address first: we have just sent you a new confirmation link."
         : res.status === 429
-          ? "Too many attempts. Wait a minute and try again."
+          ? (err.message ?? "Too many attempts. Wait a few minutes and try again.")
           : "That e-mail and password do not match an account.";
     return data(
       { result: submission.reply({ formErrors: [message], hideFields: ["password"] }) },

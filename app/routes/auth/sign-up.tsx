@@ -3,7 +3,7 @@ import { useCheckedForm } from "~/components/checked-form";
 import { getZodConstraint, parseWithZod } from "@conform-to/zod/v4";
 import { data, Form, Link, redirect, useSearchParams, href } from "react-router";
 import { auth } from "~/auth/auth.server";
-import { authErrorOf } from "~/auth/cookies.server";
+import { apiErrorResponse, authErrorOf } from "~/auth/cookies.server";
 import { safeNext, signUpSchema } from "~/auth/forms";
 import { FormErrors, TextField } from "~/components/field";
 import type { Route } from "./+types/sign-up";
@@ -21,7 +21,7 @@ export async function action({ request }: Route.ActionArgs) {
     body: { name, email, password, callbackURL: safeNext(next) },
     headers: request.headers,
     asResponse: true,
-  });
+  }).catch(apiErrorResponse);
   if (!res.ok) {
     const err = await authErrorOf(res);
     const message =
@@ -30,7 +30,7 @@ export async function action({ request }: Route.ActionArgs) {
         : (err.message ?? "The account could not be created.");
     return data(
       { result: submission.reply({ formErrors: [message], hideFields: ["password", "confirm"] }) },
-      { status: 400 },
+      { status: res.status === 429 ? 429 : 400 },
     );
   }
   throw redirect(`${href("/check-email")}?to=${encodeURIComponent(email)}`);

@@ -18,8 +18,8 @@ export async function action(args: Route.ActionArgs) {
   const user = await sessionUser(args);
   if (!user) throw redirect(`${href("/sign-in")}?next=${encodeURIComponent(new URL(args.request.url).pathname + new URL(args.request.url).search)}`);
   const token = String((await args.request.formData()).get("token") ?? "");
-  const ok = await acceptContributorInvite(args.context.get(dbContext), { submissionId: args.params.submissionId, token, userId: user.id });
-  if (!ok) throw data("This invitation was already used or is not valid. Ask the corresponding author to invite you again.", { status: 404 });
+  const answer = await acceptContributorInvite(args.context.get(dbContext), { submissionId: args.params.submissionId, token, userId: user.id });
+  if (!answer.ok) throw data(answer.message, { status: answer.reason === "other-address" ? 403 : answer.reason === "expired" ? 410 : 404 });
   throw redirect(href("/submissions/:submissionId", { submissionId: args.params.submissionId }));
 }
 

@@ -6,7 +6,8 @@ import { TextField } from "~/components/field";
 import { TextArea } from "~/components/workspace/text-area";
 import { serviceError } from "~/workspace/action-errors.server";
 import { requireLatestRound } from "~/access/page-guards.server";
-import { inviteContributor } from "~/workspace/contributors.server";
+import { inviteContributor, revokeContributorInvite } from "~/workspace/contributors.server";
+import { clientAddress } from "~/lib/client-address";
 import { CREDIT_ROLES } from "~/workspace/credit";
 import { contributorSchema, submissionFields, submissionSchema } from "~/workspace/submission-form";
 import { submissionContributors, submissionHeader, updateSubmission } from "~/workspace/submissions.server";
@@ -28,12 +29,18 @@ export async function action(args: Route.ActionArgs) {
     const parsed = parseWithZod(formData, { schema: contributorSchema });
     if (parsed.status !== "success") return data({ form: "invite", result: parsed.reply() }, { status: 400 });
     try {
-      await inviteContributor(db, { submissionId: submission.id, invitedBy: user.id, ...parsed.value });
+      await inviteContributor(db, { submissionId: submission.id, invitedBy: user.id, ...parsed.value, fromAddress: clientAddress(args.request) });
     } catch (e) {
       const r = serviceError(e);
       return data({ form: "invite", result: parsed.reply({ fieldErrors: { email: [r.data.error.message] } }) }, { status: r.init?.status ?? 400 });
     }
     return { form: "invite", result: parsed.reply({ resetForm: true }) };
+  }
+  if (formData.get("intent") === "revoke-invite") {
+    // The link in the mail stops working; the person stays listed and can be invited again.
+    const contributorId = String(formData.get("contributorId") ?? "");
+    const withdrawn = /^[0-9a-f-]{36}$/i.test(contributorId) && (await revokeContributorInvite(db, { submissionId: submission.id, contributorId }));
+    return data({ form: "revoke", withdrawn, result: undefined }, { status: withdrawn ? 200 : 404 });
   }
   const parsed = parseWithZod(formData, { schema: submissionSchema });
   if (parsed.status !== "success") return data({ form: "details", result: parsed.reply() }, { status: 400 });
@@ -95,6 +102,15 @@ export default function Details({ loaderData: { s, people, canEdit }, actionData
                 {p.orcid ? ` · ORCID ${p.orcid}` : ""} · {p.joined ? "joined" : "invited, not yet joined"}
                 {p.creditRoles.length ? ` · ${p.creditRoles.join(", ")}` : ""}
               </div>
+              {p.joined || !canEdit ? null : (
+                <Form method="post" className="mt-1">
+                  <input type="hidden" name="intent" value="revoke-invite" />
+                  <input type="hidden" name="contributorId" value={p.id} />
+                  <button type="submit" className="text-caption underline">
+                    Withdraw the invitation link
+                  </button>
+                </Form>
+              )}
             </li>
           ))}
         </ol>
