@@ -1,7 +1,7 @@
 import { createContext } from "react-router";
 import { createDatabase, type Database } from "~db/client";
 import { env } from "~/config/env.server";
-import { stopJobSender } from "~/jobs/recheck.server";
+import { stopJobSender } from "~/jobs/check-queue.server";
 
 // Kept on globalThis so the dev server's module reloads do not open a new pool each time.
 const g = globalThis as unknown as { __runproofDb?: ReturnType<typeof createDatabase>; __runproofExit?: boolean };

@@ -10,7 +10,7 @@ import { releaseDecision } from "../app/review/decisions.server";
 import { inviteReviewer, respondToInvitation } from "../app/review/invitations.server";
 import { saveRemark, saveReportMeta, setVerdict, submitReview } from "../app/review/reviews.server";
 import { saveRemarkResponse } from "../app/review/revision.server";
-import { newToken } from "../app/review/tokens.server";
+import { newToken } from "../app/review/link-tokens.server";
 import { sendRound } from "../app/workspace/send.server";
 import { createSubmission } from "../app/workspace/submissions.server";
 import type { Database } from "./client";

@@ -75,7 +75,7 @@ async function seedScale() {
   const { addRun, addClaim } = await import("../app/workspace/run-edits.server");
   const { attachCsv } = await import("../app/workspace/attachments.server");
   const { recheckRound } = await import("../app/workspace/recheck.server");
-  const { createApiToken } = await import("../app/api/tokens.server");
+  const { createApiToken } = await import("../app/api/api-tokens.server");
   const [author] = await db.select().from(s.user).where(eq(s.user.email, "author@demo.runproof.example"));
   const [editor] = await db.select().from(s.user).where(eq(s.user.email, "editor@demo.runproof.example"));
   const [venue] = await db.select().from(s.venues).where(eq(s.venues.slug, "corvane-annals"));

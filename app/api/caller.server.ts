@@ -2,7 +2,7 @@ import { sessionUserOf } from "~/access/session.server";
 import type { Db } from "~/workspace/types";
 import { apiError } from "./errors.server";
 import { consumeRateLimit, RATE_LIMIT_PER_MINUTE } from "./rate-limit.server";
-import { verifyApiToken, type TokenScope } from "./tokens.server";
+import { verifyApiToken, type TokenScope } from "./api-tokens.server";
 
 export type ApiCaller = { userId: string; via: "token" | "session"; scopes: string[] };
 

@@ -4,7 +4,7 @@ import { attachments, storedFiles } from "~db/schema";
 import { storedDerived } from "~/workspace/round-data.server";
 import { roundRunList } from "~/workspace/runs.server";
 import { apiError } from "./errors.server";
-import { ADVISORY, noFlags, runFlags } from "./views.server";
+import { ADVISORY, noFlags, runFlags } from "./api-views.server";
 
 /**
  * One run of a round as the API returns it: the record of the version the round uses, the

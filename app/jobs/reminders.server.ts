@@ -6,7 +6,7 @@ import { invitations, reviews, rounds, submissions, user, venues } from "~db/sch
 import { env } from "~/config/env.server";
 import { compose } from "~/mail/compose";
 import { enqueueMail } from "~/mail/outbox.server";
-import { venueEditors } from "~/review/context.server";
+import { venueEditors } from "~/review/round-context.server";
 
 const SOON_MS = 3 * 86_400_000;
 

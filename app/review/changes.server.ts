@@ -1,6 +1,6 @@
 import type { Database } from "~db/client";
 import { roundRunList } from "~/workspace/runs.server";
-import { roundContext, type RoundContext } from "./context.server";
+import { roundContext, type RoundContext } from "./round-context.server";
 import { diffFlags, diffParameters, groupByRuleAndRun } from "./diff";
 import { roundFlags } from "./documents.server";
 import { releasedRemarks, responsesTo } from "./remarks.server";

@@ -9,7 +9,7 @@ import { enqueueMail } from "~/mail/outbox.server";
 import { audit } from "~/workspace/audit.server";
 import { requestRecheck } from "~/workspace/recheck.server";
 import { StateConflict } from "~/workspace/types";
-import { roundContext, submissionAuthors } from "./context.server";
+import { roundContext, submissionAuthors } from "./round-context.server";
 import { letterFor } from "./documents.server";
 import { OPEN_STATES } from "./invitations.server";
 import { releasedRemarks } from "./remarks.server";

@@ -4,7 +4,7 @@ import type { Derived } from "~/checker/types";
 import { roundClaims } from "~/workspace/claims.server";
 import { roundRunList } from "~/workspace/runs.server";
 import type { Db } from "~/workspace/types";
-import type { RoundContext } from "./context.server";
+import type { RoundContext } from "./round-context.server";
 import { decisionLetterPdf } from "./pdf/letter.server";
 import { reviewerPacketPdf } from "./pdf/packet.server";
 import { releasedRemarks } from "./remarks.server";

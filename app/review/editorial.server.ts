@@ -1,7 +1,7 @@
 import { and, asc, desc, eq } from "drizzle-orm";
 import { auditLog, invitations, reviews, rounds, user } from "~db/schema";
 import type { Db } from "~/workspace/types";
-import type { RoundContext } from "./context.server";
+import type { RoundContext } from "./round-context.server";
 import { roundFlags } from "./documents.server";
 import { anchorLabels } from "./remarks.server";
 import { reportParts } from "./reviews.server";

@@ -7,10 +7,10 @@ import { compose } from "~/mail/compose";
 import { enqueueMail } from "~/mail/outbox.server";
 import { audit } from "~/workspace/audit.server";
 import { InvalidInput, StateConflict, type Db } from "~/workspace/types";
-import { listedPeople, roundContext, venueEditors, type RoundContext } from "./context.server";
+import { listedPeople, roundContext, venueEditors, type RoundContext } from "./round-context.server";
 import { calendarAttachment, reviewDueCalendar } from "./ical";
 import { invitationStateLabel, roundStateLabel } from "./labels";
-import { hashToken, newToken } from "./tokens.server";
+import { hashToken, newToken } from "./link-tokens.server";
 
 const LINK_DAYS = 14;
 import { OPEN_STATES } from "./states";

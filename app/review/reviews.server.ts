@@ -8,9 +8,9 @@ import { compose } from "~/mail/compose";
 import { enqueueMail } from "~/mail/outbox.server";
 import { audit } from "~/workspace/audit.server";
 import { InvalidInput, StateConflict, type Db } from "~/workspace/types";
-import { roundContext, venueEditors } from "./context.server";
+import { roundContext, venueEditors } from "./round-context.server";
 import { recommendationLabel } from "./labels";
-import type { RemarkInput } from "./forms";
+import type { RemarkInput } from "./review-forms";
 import { isEmptyDoc } from "./tiptap/extensions";
 
 /** The signed-in reviewer's report on a round, or null when they hold none. */

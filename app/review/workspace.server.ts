@@ -6,7 +6,7 @@ import { roundClaims } from "~/workspace/claims.server";
 import { roundFlags } from "~/workspace/flags-query.server";
 import { roundRunRows, runPlotsMany } from "~/workspace/round-data.server";
 import { roundRunList } from "~/workspace/runs.server";
-import type { RoundContext } from "./context.server";
+import type { RoundContext } from "./round-context.server";
 import { anchorLabels } from "./remarks.server";
 import { reportParts } from "./reviews.server";
 import { renderRichText } from "./tiptap/render.server";

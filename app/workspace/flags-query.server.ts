@@ -4,7 +4,7 @@ import { claims, flags } from "~db/schema";
 import { ruleById } from "~/checker/registry";
 import { fmt } from "~/checker/types";
 
-import type { FlagView } from "./views";
+import type { FlagView } from "./view-types";
 
 export type { FlagView };
 

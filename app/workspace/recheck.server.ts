@@ -6,7 +6,7 @@ import { CheckInputError, checkPreparedRound, ClaimCheckError, policySchema, res
 import { parseCsvStreamTyped } from "~/checker/csv-stream";
 import type { ClaimRecord, Columns, RunRecord } from "~/checker/schema";
 import type { Derived, Flag } from "~/checker/types";
-import { queueRecheck } from "~/jobs/recheck.server";
+import { queueRecheck } from "~/jobs/check-queue.server";
 import { storage } from "~/storage/storage.server";
 import { analyseColumns } from "./attachment-analysis";
 import { roundRunList } from "./runs.server";

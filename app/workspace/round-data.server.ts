@@ -4,7 +4,7 @@ import { attachments, flags, roundRuns, runChecks, runs, runVersions, storedFile
 import type { RunRecord } from "~/checker/schema";
 import { seriesSummary } from "~/checker/derive";
 import type { SeriesStats } from "~/checker/series";
-import type { RunRow, SeriesPlot, SpectrumPlot } from "./views";
+import type { RunRow, SeriesPlot, SpectrumPlot } from "./view-types";
 
 export type { RunRow, SeriesPlot, SpectrumPlot };
 

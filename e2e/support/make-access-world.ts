@@ -22,7 +22,7 @@ import { account, claims, contributors, flags, invitations, reviews, roundRuns, 
 import { releaseDecision } from "../../app/review/decisions.server";
 import { inviteReviewer, respondToInvitation } from "../../app/review/invitations.server";
 import { saveRemark, saveReportMeta, submitReview } from "../../app/review/reviews.server";
-import { newToken } from "../../app/review/tokens.server";
+import { newToken } from "../../app/review/link-tokens.server";
 import { createClaim } from "../../app/workspace/claims.server";
 import { recheckRound } from "../../app/workspace/recheck.server";
 import { createRun, parseRunRecord } from "../../app/workspace/runs.server";

@@ -11,7 +11,7 @@ import { flags, invitations, reviews, rounds, user } from "../../database/schema
 import { releaseDecision } from "../../app/review/decisions.server";
 import { inviteReviewer, respondToInvitation } from "../../app/review/invitations.server";
 import { saveRemark, saveReportMeta, setVerdict, submitReview } from "../../app/review/reviews.server";
-import { newToken } from "../../app/review/tokens.server";
+import { newToken } from "../../app/review/link-tokens.server";
 import { makeSentRound } from "./make-sent-round";
 
 const doc = (text: string) => ({ type: "doc", content: [{ type: "paragraph", content: [{ type: "text", text }] }] });

@@ -23,7 +23,7 @@ import * as runsRoute from "~/routes/api/v1/runs";
 import * as submissionRoute from "~/routes/api/v1/submission";
 import * as submissionsRoute from "~/routes/api/v1/submissions";
 import { RATE_LIMIT_PER_MINUTE } from "~/api/rate-limit.server";
-import { hashToken, revokeApiToken } from "~/api/tokens.server";
+import { hashToken, revokeApiToken } from "~/api/api-tokens.server";
 import { recheckRound } from "~/workspace/recheck.server";
 import { and } from "drizzle-orm";
 import { testDatabase } from "../support/test-db";

@@ -3,7 +3,7 @@ import { inArray } from "drizzle-orm";
 import { RouterContextProvider } from "react-router";
 import type { Database } from "~db/client";
 import { contributors, reviews, rounds, storedFiles, submissionMembers, submissions, user, venueMembers, venues } from "~db/schema";
-import { createApiToken, type TokenScope } from "~/api/tokens.server";
+import { createApiToken, type TokenScope } from "~/api/api-tokens.server";
 import { dbContext } from "~/db.server";
 
 type Handler = (args: never) => Promise<Response> | Response;

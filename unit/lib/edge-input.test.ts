@@ -1,7 +1,7 @@
 import fc from "fast-check";
 import { RouterContextProvider } from "react-router";
 import { describe, expect, it } from "vitest";
-import { safeNext } from "~/auth/forms";
+import { safeNext } from "~/auth/sign-in-forms";
 import { contentDisposition } from "~/lib/content-disposition";
 import { badParam, cleanText, findBadText, MAX_ROUND, paramProblem, safeLocalPath, textProblem } from "~/lib/edge-input";
 import { edgeInputMiddleware } from "~/middleware.server";

@@ -4,7 +4,7 @@ import { extractText, getDocumentProxy } from "unpdf";
 import { afterAll, describe, expect, it } from "vitest";
 import { demoPeople } from "~db/demo-data";
 import { submissions, venues } from "~db/schema";
-import { roundContext } from "~/review/context.server";
+import { roundContext } from "~/review/round-context.server";
 import { packetFor } from "~/review/documents.server";
 import { reviewerView } from "~/review/workspace.server";
 import { makeSentRound } from "../../e2e/support/make-sent-round";

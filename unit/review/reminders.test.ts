@@ -7,7 +7,7 @@ import { makeSentRound } from "../../e2e/support/make-sent-round";
 import { testDatabase } from "../support/test-db";
 import { dropQueuedMail } from "./outbox-cleanup";
 import { demoPeople } from "~db/demo-data";
-import { newToken } from "~/review/tokens.server";
+import { newToken } from "~/review/link-tokens.server";
 
 const { db, sql } = testDatabase();
 const title = `Reminders ${Date.now()}`;

@@ -1,7 +1,7 @@
 import { describe, expect, it } from "vitest";
 import { runSchema } from "~/checker/schema";
 import { demoRuns } from "~db/demo-data";
-import { fieldForQuantity, formToRecord, recordToValues, RUN_FIELDS } from "~/workspace/run-form";
+import { fieldForQuantity, formToRecord, recordToValues, RUN_FIELDS } from "~/workspace/run-form-fields";
 
 describe("the run form mirrors runproof.run/1", () => {
   it("gives back the same record after a trip through the form's inputs", () => {

@@ -1,4 +1,4 @@
-import type { FlagView } from "~/workspace/views";
+import type { FlagView } from "~/workspace/view-types";
 import { severityLabel } from "~/review/labels";
 
 const tone: Record<string, string> = { mismatch: "border-ember bg-ember-wash", caution: "border-amber bg-amber-wash", note: "border-fjord bg-fjord-wash" };

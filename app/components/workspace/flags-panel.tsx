@@ -1,7 +1,7 @@
 import { useMemo, useState } from "react";
 import { Link, useFetcher } from "react-router";
 import { AdvisoryNote } from "~/components/advisory-note";
-import type { FlagView } from "~/workspace/views";
+import type { FlagView } from "~/workspace/view-types";
 import { severityLabel } from "~/review/labels";
 
 type Props = {

@@ -1,5 +1,5 @@
 import { CartesianGrid, Legend, Line, LineChart, ReferenceArea, ReferenceLine, ResponsiveContainer, Scatter, ScatterChart, Tooltip, XAxis, YAxis, ZAxis, LabelList } from "recharts";
-import type { SeriesPlot, SpectrumPlot } from "~/workspace/views";
+import type { SeriesPlot, SpectrumPlot } from "~/workspace/view-types";
 import { ClientOnly } from "./client-only";
 import { fmt } from "~/checker/types";
 import { formatNumber } from "./runs-table";

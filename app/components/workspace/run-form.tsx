@@ -1,5 +1,5 @@
 import { Form } from "react-router";
-import { RUN_SECTIONS, fieldId, type RunField } from "~/workspace/run-form";
+import { RUN_SECTIONS, fieldId, type RunField } from "~/workspace/run-form-fields";
 
 type Issue = { path: string; message: string };
 

@@ -1,5 +1,5 @@
 import { Link } from "react-router";
-import type { RunRow } from "~/workspace/views";
+import type { RunRow } from "~/workspace/view-types";
 import { useRunsPage } from "./use-runs-page";
 
 const COLUMNS: { key: Exclude<keyof RunRow, "checking" | "updatedAt">; label: string; numeric?: boolean }[] = [

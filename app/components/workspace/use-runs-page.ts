@@ -1,6 +1,6 @@
 import { useEffect, useRef, useState } from "react";
 import { useFetcher } from "react-router";
-import type { RunRow } from "~/workspace/views";
+import type { RunRow } from "~/workspace/view-types";
 
 export const RUNS_PAGE_SIZE = 25;
 

@@ -4,7 +4,7 @@ import { getZodConstraint, parseWithZod } from "@conform-to/zod/v4";
 import { eq } from "drizzle-orm";
 import { data, Form, Link, href } from "react-router";
 import { user as userTable } from "~db/schema";
-import { profileSchema } from "~/auth/forms";
+import { profileSchema } from "~/auth/sign-in-forms";
 import { requireUser } from "~/access/session.server";
 import { TextField } from "~/components/field";
 import { DigestForm } from "~/components/review/digest-form";

@@ -2,7 +2,7 @@ import { getFormProps, getInputProps, getSelectProps } from "@conform-to/react";
 import { useCheckedForm } from "~/components/checked-form";
 import { getZodConstraint, parseWithZod } from "@conform-to/zod/v4";
 import { data, Form, Link, useNavigation, href } from "react-router";
-import { createApiToken, listApiTokens, revokeApiToken } from "~/api/tokens.server";
+import { createApiToken, listApiTokens, revokeApiToken } from "~/api/api-tokens.server";
 import { createTokenSchema, revokeTokenSchema, scopesFor } from "~/api/token-form";
 import { requireUser } from "~/access/session.server";
 import { TextField } from "~/components/field";

@@ -2,7 +2,7 @@ import { parseWithZod } from "@conform-to/zod/v4";
 import { asc, eq } from "drizzle-orm";
 import { data, useFetcher } from "react-router";
 import { user } from "~db/schema";
-import { setRoleSchema } from "~/admin/forms";
+import { setRoleSchema } from "~/admin/venue-forms";
 import { requireAdmin } from "~/access/session.server";
 import type { Route } from "./+types/users";
 

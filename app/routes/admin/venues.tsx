@@ -4,7 +4,7 @@ import { getZodConstraint, parseWithZod } from "@conform-to/zod/v4";
 import { eq } from "drizzle-orm";
 import { data, Form, href } from "react-router";
 import { venueMembers, venues } from "~db/schema";
-import { addEditorSchema, createVenueSchema } from "~/admin/forms";
+import { addEditorSchema, createVenueSchema } from "~/admin/venue-forms";
 import { createVenue, findUserIdByEmail, listVenues } from "~/admin/venues.server";
 import { requireAdmin } from "~/access/session.server";
 import { FormErrors, TextField } from "~/components/field";

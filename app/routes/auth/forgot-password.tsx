@@ -4,7 +4,7 @@ import { getZodConstraint, parseWithZod } from "@conform-to/zod/v4";
 import { data, Form } from "react-router";
 import { isAPIError } from "better-auth/api";
 import { auth } from "~/auth/auth.server";
-import { forgotSchema } from "~/auth/forms";
+import { forgotSchema } from "~/auth/sign-in-forms";
 import { FormErrors, TextField } from "~/components/field";
 import type { Route } from "./+types/forgot-password";
 

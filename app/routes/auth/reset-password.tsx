@@ -4,7 +4,7 @@ import { getZodConstraint, parseWithZod } from "@conform-to/zod/v4";
 import { data, Form, Link, redirect, href } from "react-router";
 import { auth } from "~/auth/auth.server";
 import { authErrorOf } from "~/auth/cookies.server";
-import { resetSchema } from "~/auth/forms";
+import { resetSchema } from "~/auth/sign-in-forms";
 import { FormErrors, TextField } from "~/components/field";
 import type { Route } from "./+types/reset-password";
 

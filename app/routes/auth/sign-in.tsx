@@ -4,7 +4,7 @@ import { getZodConstraint, parseWithZod } from "@conform-to/zod/v4";
 import { data, Form, Link, redirect, useSearchParams, href } from "react-router";
 import { auth } from "~/auth/auth.server";
 import { apiErrorResponse, authErrorOf, forwardCookies } from "~/auth/cookies.server";
-import { safeNext, signInSchema } from "~/auth/forms";
+import { safeNext, signInSchema } from "~/auth/sign-in-forms";
 import { sessionUser } from "~/access/session.server";
 import { FormErrors, TextField } from "~/components/field";
 import type { Route } from "./+types/sign-in";

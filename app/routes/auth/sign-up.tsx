@@ -4,7 +4,7 @@ import { getZodConstraint, parseWithZod } from "@conform-to/zod/v4";
 import { data, Form, Link, redirect, useSearchParams, href } from "react-router";
 import { auth } from "~/auth/auth.server";
 import { apiErrorResponse, authErrorOf } from "~/auth/cookies.server";
-import { safeNext, signUpSchema } from "~/auth/forms";
+import { safeNext, signUpSchema } from "~/auth/sign-in-forms";
 import { FormErrors, TextField } from "~/components/field";
 import type { Route } from "./+types/sign-up";
 

@@ -1,7 +1,7 @@
 import { data, Form, Link, redirect, href } from "react-router";
 import { sessionUser } from "~/access/session.server";
 import { dbContext } from "~/db.server";
-import { roundContext } from "~/review/context.server";
+import { roundContext } from "~/review/round-context.server";
 import { invitationByToken, respondToInvitation } from "~/review/invitations.server";
 import { StateConflict } from "~/workspace/types";
 import type { Route } from "./+types/invitation";

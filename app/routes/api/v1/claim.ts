@@ -6,7 +6,7 @@ import { requireApiCaller } from "~/api/caller.server";
 import { apiError, apiHandle } from "~/api/errors.server";
 import { methodNotAllowed, parseBody } from "~/api/input.server";
 import { claimUpdateSchema } from "~/api/schemas";
-import { claimOut } from "~/api/views.server";
+import { claimOut } from "~/api/api-views.server";
 import { dbContext } from "~/db.server";
 import { updateClaim } from "~/workspace/claims.server";
 import { requestRecheck } from "~/workspace/recheck.server";

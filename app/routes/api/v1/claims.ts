@@ -1,7 +1,7 @@
 import { roundForApi } from "~/access/api-guards.server";
 import { requireApiCaller } from "~/api/caller.server";
 import { apiHandle } from "~/api/errors.server";
-import { claimOut } from "~/api/views.server";
+import { claimOut } from "~/api/api-views.server";
 import { methodNotAllowed, parseBody } from "~/api/input.server";
 import { claimWriteSchema } from "~/api/schemas";
 import { dbContext } from "~/db.server";

@@ -5,7 +5,7 @@ import { requireApiCaller } from "~/api/caller.server";
 import { apiHandle } from "~/api/errors.server";
 import { methodNotAllowed, parseQuery } from "~/api/input.server";
 import { flagsQuerySchema } from "~/api/schemas";
-import { ADVISORY, flagOut } from "~/api/views.server";
+import { ADVISORY, flagOut } from "~/api/api-views.server";
 import { dbContext } from "~/db.server";
 import type { Route } from "./+types/flags";
 

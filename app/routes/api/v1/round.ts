@@ -4,7 +4,7 @@ import { roundForApi } from "~/access/api-guards.server";
 import { requireApiCaller } from "~/api/caller.server";
 import { apiHandle } from "~/api/errors.server";
 import { methodNotAllowed } from "~/api/input.server";
-import { flagCountsByRun, iso } from "~/api/views.server";
+import { flagCountsByRun, iso } from "~/api/api-views.server";
 import { dbContext } from "~/db.server";
 import type { Route } from "./+types/round";
 

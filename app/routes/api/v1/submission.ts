@@ -4,7 +4,7 @@ import { submissionForApi } from "~/access/api-guards.server";
 import { shownSubmission } from "~/access/relation.server";
 import { requireApiCaller } from "~/api/caller.server";
 import { apiHandle } from "~/api/errors.server";
-import { iso } from "~/api/views.server";
+import { iso } from "~/api/api-views.server";
 import { methodNotAllowed } from "~/api/input.server";
 import { dbContext } from "~/db.server";
 import type { Route } from "./+types/submission";

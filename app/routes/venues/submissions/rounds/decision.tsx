@@ -5,7 +5,7 @@ import { requireRound } from "~/access/page-guards.server";
 import { rounds } from "~db/schema";
 import { RichText } from "~/components/review/rich-text";
 import { asActionError } from "~/workspace/action-errors.server";
-import { responseSchema } from "~/review/forms";
+import { responseSchema } from "~/review/review-forms";
 import { releasedRemarks, responsesTo } from "~/review/remarks.server";
 import { saveRemarkResponse } from "~/review/revision.server";
 import { renderRichText } from "~/review/tiptap/render.server";

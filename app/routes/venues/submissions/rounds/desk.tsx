@@ -7,7 +7,7 @@ import { RichTextEditor } from "~/components/review/rich-text-editor";
 import { asActionError } from "~/workspace/action-errors.server";
 import { releaseDecision, saveDecisionDraft } from "~/review/decisions.server";
 import { editorialView } from "~/review/editorial.server";
-import { decisionSchema, inviteSchema, RECOMMENDATIONS, reinviteSchema } from "~/review/forms";
+import { decisionSchema, inviteSchema, RECOMMENDATIONS, reinviteSchema } from "~/review/review-forms";
 import { conflictCheck, inviteReviewer, reinvitePrevious, resendInvitation, withdrawInvitation } from "~/review/invitations.server";
 import { isId } from "~/access/relation.server";
 import type { Route } from "./+types/desk";

@@ -6,7 +6,7 @@ import { serviceError } from "~/workspace/action-errors.server";
 import { roundClaims } from "~/workspace/claims.server";
 import { roundFlags } from "~/workspace/flags-query.server";
 import { roundRunRows } from "~/workspace/round-data.server";
-import { fieldId, fieldForQuantity } from "~/workspace/run-form";
+import { fieldId, fieldForQuantity } from "~/workspace/run-form-fields";
 import { sendRound } from "~/workspace/send.server";
 import type { Route } from "./+types/overview";
 

@@ -13,7 +13,7 @@ import { SeriesChart, SpectrumChart } from "~/components/workspace/lazy-plots";
 import { RunsTable } from "~/components/workspace/runs-table";
 import { asActionError } from "~/workspace/action-errors.server";
 import { respondAsInvitee } from "~/review/invitations.server";
-import { RECOMMENDATIONS, remarkSchema, reportMetaSchema, verdictSchema } from "~/review/forms";
+import { RECOMMENDATIONS, remarkSchema, reportMetaSchema, verdictSchema } from "~/review/review-forms";
 import { deleteRemark, saveRemark, saveReportMeta, setVerdict, submitReview } from "~/review/reviews.server";
 import { OPEN_STATES } from "~/review/states";
 import { reviewerView } from "~/review/workspace.server";

@@ -6,7 +6,7 @@ import { RunsTable } from "~/components/workspace/runs-table";
 import { serviceError } from "~/workspace/action-errors.server";
 import { keyMapText, parseKeyMap, SUGGESTED_MAP } from "~/workspace/namelist-map";
 import { roundRunRows } from "~/workspace/round-data.server";
-import { formToRecord } from "~/workspace/run-form";
+import { formToRecord } from "~/workspace/run-form-fields";
 import { addRun, importNamelist, parseJsonText, saveKeyMap, savedKeyMap } from "~/workspace/run-edits.server";
 import type { Route } from "./+types/index";
 

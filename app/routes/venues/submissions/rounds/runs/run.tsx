@@ -9,7 +9,7 @@ import { serviceError } from "~/workspace/action-errors.server";
 import { requireRound } from "~/access/page-guards.server";
 import { roundFlags } from "~/workspace/flags-query.server";
 import { runPlots } from "~/workspace/round-data.server";
-import { fieldId, fieldForQuantity, formToRecord, recordToValues } from "~/workspace/run-form";
+import { fieldId, fieldForQuantity, formToRecord, recordToValues } from "~/workspace/run-form-fields";
 import { editRun } from "~/workspace/run-edits.server";
 import { roundRunList, runVersionHistory } from "~/workspace/runs.server";
 import type { Route } from "./+types/run";
