@@ -34,12 +34,16 @@ describe("every port follows the checkout's variables", () => {
     try {
       const config = (await import("../playwright.config")).default as {
         use: { baseURL: string };
-        webServer: { url: string; env: Record<string, string> };
+        webServer: { name: string; url?: string; env: Record<string, string> }[];
       };
+      const web = config.webServer.find((s) => s.name === "web")!;
+      const worker = config.webServer.find((s) => s.name === "worker")!;
       expect(new URL(config.use.baseURL).port).toBe(PORTS.E2E_PORT);
-      expect(new URL(config.webServer.url).port).toBe(PORTS.E2E_PORT);
-      expect(config.webServer.env.PORT).toBe(PORTS.E2E_PORT);
-      expect(new URL(config.webServer.env.DATABASE_URL!).port).toBe(PORTS.PGPORT_RUNPROOF);
+      expect(new URL(web.url!).port).toBe(PORTS.E2E_PORT);
+      expect(web.env.PORT).toBe(PORTS.E2E_PORT);
+      expect(new URL(web.env.DATABASE_URL!).port).toBe(PORTS.PGPORT_RUNPROOF);
+      // The job worker checks rounds in the same database the server writes to.
+      expect(worker.env.DATABASE_URL).toBe(web.env.DATABASE_URL);
     } finally {
       process.env = saved;
     }

@@ -62,7 +62,7 @@ export class ColumnBuilder {
       throw new CsvFormatError(`expected ${this.names.length} values (${this.names.join(", ")}), found ${width}`, line);
     }
     if (this.rows >= CSV_LIMITS.rows) {
-      throw new CsvFormatError(`the ${this.kind} has more than ${CSV_LIMITS.rows} rows; thin it (e.g. every n-th row) and upload again`, line);
+      throw new CsvFormatError(`the ${this.kind} has more than ${CSV_LIMITS.rows.toLocaleString("en")} data rows; thin it (e.g. every n-th row) and upload again`, line);
     }
     if (this.rows === this.cols[0]!.length) this.grow();
     return this.rows;
