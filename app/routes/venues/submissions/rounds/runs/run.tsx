@@ -8,7 +8,9 @@ import { env } from "~/config/env.server";
 import { serviceError } from "~/workspace/action-errors.server";
 import { requireRound } from "~/access/page-guards.server";
 import { roundFlags } from "~/workspace/flags-query.server";
-import { runPlots } from "~/workspace/round-data.server";
+import { runPlots, storedDerived } from "~/workspace/round-data.server";
+import { DERIVED_LABELS, recordLines } from "~/review/pdf/run-record";
+import { sig4 } from "~/lib/sig-figs";
 import { fieldId, fieldForQuantity, formToRecord, recordToValues } from "~/workspace/run-form-fields";
 import { editRun } from "~/workspace/run-edits.server";
 import { roundRunList, runVersionHistory } from "~/workspace/runs.server";
@@ -26,17 +28,28 @@ export async function loader(args: Route.LoaderArgs) {
   const { db, access } = await requireRound(args, "read-runs");
   const { round } = access;
   const run = await runOfRound(db, round.id, args.params.runId);
-  const [history, plots, flags] = await Promise.all([
+  const [history, plots, flags, derived] = await Promise.all([
     runVersionHistory(db, run.runId),
     runPlots(db, run.versionId, run.record as RunRecord),
     roundFlags(db, round.id),
+    storedDerived(db, run.versionId),
   ]);
+  // The recomputed values as the check job stored them for this run version (nothing is recomputed here).
+  const valueAt = (key: string) => key.split(".").reduce<unknown>((o, k) => (o && typeof o === "object" ? (o as Record<string, unknown>)[k] : undefined), derived);
+  const recomputed = DERIVED_LABELS.flatMap(([key, label]) => {
+    const v = valueAt(key);
+    if (typeof v !== "number" || !Number.isFinite(v)) return [];
+    const [symbol, ...words] = label.split(", ");
+    return [{ key, symbol: symbol!, name: words.join(", "), value: sig4(v) }];
+  });
   return {
     checkError: round!.checkError,
     run: { runId: run.runId, label: run.label, version: run.version, origin: run.origin, values: recordToValues(run.record), record: run.record },
     // A frozen round shows only the versions up to the one it used.
     history: history.filter((h) => h.version <= run.version || round.state === "draft").map((h) => ({ version: h.version, origin: h.origin, createdAt: h.createdAt.toISOString() })),
     plots,
+    recomputed,
+    groups: recordLines(run.record),
     flags: flags.filter((f) => f.runLabel === run.label),
     canEdit: access.can("write-runs"),
     limitBytes: env.UPLOAD_LIMIT_MB * 1024 * 1024,
@@ -81,6 +94,44 @@ export default function Run({ loaderData: d, actionData, params }: Route.Compone
             Saved as version {actionData.version}; the checker re-ran.
           </p>
         ) : null}
+      </div>
+      <div className="grid gap-4 lg:grid-cols-2">
+        <section aria-labelledby="full-record-h" className="card" data-testid="run-full-record">
+          <h3 id="full-record-h" className="text-lead">
+            The run as recorded
+          </h3>
+          <dl className="mt-2 grid grid-cols-[max-content_1fr] gap-x-4 gap-y-1 text-caption">
+            {d.groups.map((g, i) => (
+              <div key={i} className="contents">
+                <dt className="font-semibold">{g.group}</dt>
+                <dd className="font-mono break-words">{g.line}</dd>
+              </div>
+            ))}
+          </dl>
+        </section>
+        <section aria-labelledby="derived-h" className="card" data-testid="run-derived">
+          <h3 id="derived-h" className="text-lead">
+            Recomputed by the checker
+          </h3>
+          {d.recomputed.length === 0 ? (
+            <p className="mt-2 text-caption">Not checked yet: the values appear when the check of this version is done.</p>
+          ) : (
+            <table className="mt-2 text-caption">
+              <tbody>
+                {d.recomputed.map((r) => (
+                  <tr key={r.key}>
+                    <th scope="row" className="pr-3 text-left font-semibold" title={r.name || undefined}>
+                      {r.symbol}
+                    </th>
+                    <td className="pr-3 text-basalt-soft">{r.name}</td>
+                    <td className="font-mono">{r.value}</td>
+                  </tr>
+                ))}
+              </tbody>
+            </table>
+          )}
+          <p className="mt-2 text-caption text-basalt-soft">Four significant figures, from the stated parameters under the run's declared conventions.</p>
+        </section>
       </div>
       <FlagsPanel
         flags={d.flags}
@@ -136,7 +187,10 @@ export default function Run({ loaderData: d, actionData, params }: Route.Compone
             extra={<input type="hidden" name="expectedVersion" value={d.run.version} />}
           />
         ) : (
-          <pre className="overflow-auto rounded border border-rule p-3 text-caption">{JSON.stringify(d.run.record, null, 2)}</pre>
+          <details>
+            <summary className="cursor-pointer text-caption">The record as JSON (runproof.run/1)</summary>
+            <pre className="overflow-auto rounded border border-rule p-3 text-caption">{JSON.stringify(d.run.record, null, 2)}</pre>
+          </details>
         )}
       </section>
     </div>
