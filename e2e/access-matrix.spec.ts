@@ -319,10 +319,14 @@ test("every route answers every kind of person as the rules say, in every round 
     while (next < jobs.length) {
       const job = jobs[next++]!;
       const ctx = await sessionFor(job.who, job.blinding);
-      const res =
-        job.method === "GET"
-          ? await ctx.get(job.url)
-          : await ctx.post(job.url, { form: job.intent ? { intent: job.intent } : { empty: "" } });
+      const send = () =>
+        job.method === "GET" ? ctx.get(job.url) : ctx.post(job.url, { form: job.intent ? { intent: job.intent } : { empty: "" } });
+      // A kept-alive connection the server closes just as it is reused resets; that says nothing
+      // about access, so such a request is sent once more on a fresh connection.
+      const res = await send().catch((error: Error) => {
+        if (/ECONNRESET|socket hang up/.test(error.message)) return send();
+        throw error;
+      });
       const body = job.isData || job.secrets ? await res.text() : "";
       if (job.secrets && res.status() === 200 && !(res.headers()["content-type"] ?? "").includes("pdf")) {
         scanned++;
@@ -333,7 +337,7 @@ test("every route answers every kind of person as the rules say, in every round 
       }
     }
   };
-  await Promise.all(Array.from({ length: 8 }, worker));
+  await Promise.all(Array.from({ length: 4 }, worker));
   console.log(`access matrix: ${jobs.length} cells checked over ${flat.length} routes; ${scanned} responses scanned for leaks`);
   expect(scanned, "responses scanned for leaks").toBeGreaterThan(40);
   for (const ctx of contexts.values()) await ctx.dispose();
