@@ -17,7 +17,8 @@ export async function loader(args: Route.LoaderArgs) {
   const { db, access } = await requireRound(args, "read-runs");
   const canEdit = access.can("write-runs");
   const [rows, map] = await Promise.all([roundRunRows(db, access.round.id), canEdit ? savedKeyMap(db, access.submission.id) : null]);
-  return { rows, canEdit, keyMap: keyMapText(map ?? SUGGESTED_MAP), keyMapSaved: Boolean(map) };
+  const deleted = new URL(args.request.url).searchParams.get("deleted")?.slice(0, 200) ?? null;
+  return { rows, canEdit, deleted, keyMap: keyMapText(map ?? SUGGESTED_MAP), keyMapSaved: Boolean(map) };
 }
 
 /** The chosen files of a multiple-file input, bounded before any is read. */
@@ -89,6 +90,11 @@ export default function Runs({ loaderData: d, actionData, params }: Route.Compon
         <h3 id="runs-h" className="text-lead">
           Runs
         </h3>
+        {d.deleted ? (
+          <p role="status" className="text-lichen" data-testid="run-deleted">
+            Run {d.deleted} was deleted from this round.
+          </p>
+        ) : null}
         {d.rows.length ? <RunsTable
             rows={d.rows}
             runHref={(r) => href("/venues/:venueId/submissions/:submissionId/rounds/:round/runs/:runId", { ...p, runId: r.runId })}
