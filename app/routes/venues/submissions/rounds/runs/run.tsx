@@ -16,6 +16,7 @@ import { editRun } from "~/workspace/run-edits.server";
 import { roundRunList, runVersionHistory } from "~/workspace/runs.server";
 import { claimsNamingRun, deleteRun } from "~/workspace/removals.server";
 import { duplicateRun } from "~/workspace/run-template.server";
+import { savedSeriesMaps } from "~/workspace/series-maps.server";
 import type { Route } from "./+types/run";
 
 export const meta: Route.MetaFunction = ({ data }) => [{ title: `Run ${data?.run.label ?? ""} · Runproof` }];
@@ -54,6 +55,7 @@ export async function loader(args: Route.LoaderArgs) {
     groups: recordLines(run.record),
     flags: flags.filter((f) => f.runLabel === run.label),
     canEdit: access.can("write-runs"),
+    seriesMaps: access.can("write-runs") ? await savedSeriesMaps(db, access.submission.id) : {},
     copiedFrom: new URL(args.request.url).searchParams.get("copied")?.slice(0, 200) ?? null,
     namedBy: access.can("write-runs") ? await claimsNamingRun(db, round.id, run.label) : [],
     limitBytes: env.UPLOAD_LIMIT_MB * 1024 * 1024,
@@ -90,6 +92,8 @@ export async function action(args: Route.ActionArgs) {
     return serviceError(e, { intent });
   }
 }
+
+const mapsOf = (maps: Record<string, string>, kind: string) => ({ columns: maps[`${kind}.columns`], hdf5: maps[`${kind}.hdf5`], netcdf: maps[`${kind}.netcdf`] });
 
 export default function Run({ loaderData: d, actionData, params }: Route.ComponentProps) {
   const p = { venueId: params.venueId, submissionId: params.submissionId, round: params.round };
@@ -220,8 +224,8 @@ export default function Run({ loaderData: d, actionData, params }: Route.Compone
         ) : null}
         {d.canEdit ? (
           <div className="grid gap-4 md:grid-cols-2">
-            <CsvUpload action={href("/venues/:venueId/submissions/:submissionId/rounds/:round/runs/:runId/attachments", { ...p, runId: d.run.runId })} kind="series" label="Attach a time series" limitBytes={d.limitBytes} />
-            <CsvUpload action={href("/venues/:venueId/submissions/:submissionId/rounds/:round/runs/:runId/attachments", { ...p, runId: d.run.runId })} kind="spectrum" label="Attach a spectrum" limitBytes={d.limitBytes} />
+            <CsvUpload action={href("/venues/:venueId/submissions/:submissionId/rounds/:round/runs/:runId/attachments", { ...p, runId: d.run.runId })} kind="series" label="Attach a time series" limitBytes={d.limitBytes} maps={mapsOf(d.seriesMaps, "series")} />
+            <CsvUpload action={href("/venues/:venueId/submissions/:submissionId/rounds/:round/runs/:runId/attachments", { ...p, runId: d.run.runId })} kind="spectrum" label="Attach a spectrum" limitBytes={d.limitBytes} maps={mapsOf(d.seriesMaps, "spectrum")} />
           </div>
         ) : null}
       </section>
