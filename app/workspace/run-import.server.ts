@@ -9,21 +9,9 @@ import { createRun } from "./runs.server";
 import { parseJsonText } from "./run-edits.server";
 import { InvalidInput, PayloadTooLarge } from "./types";
 import { zodIssues } from "./zod-issues";
+import { BULK_LIMITS } from "./run-import-limits";
 
-/**
- * Bounds of one import of many runs (documented on the runs page and in docs/api.md): enough for
- * a paper's parameter survey, small enough that one request validates everything before writing.
- */
-export const BULK_LIMITS = {
-  /** Files in one import. */
-  files: 50,
-  /** Run records in one import (all files together). */
-  records: 200,
-  /** Bytes of one file. */
-  fileBytes: 1024 * 1024,
-  /** Bytes of all files together. */
-  totalBytes: 5 * 1024 * 1024,
-} as const;
+export { BULK_LIMITS };
 
 export type BulkFile = { name: string; text: string };
 type Issue = { path: string; message: string };

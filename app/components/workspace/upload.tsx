@@ -62,7 +62,7 @@ export function CsvUpload({
       }
       setProgress(100);
       if (xhr.status >= 200 && xhr.status < 300 && body.attachment) {
-        setDone(`Attached (${body.attachment.format ?? "CSV"}): ${body.attachment.rowCount} rows, columns ${body.attachment.columns.join(", ")}.`);
+        setDone(`Attached: ${body.attachment.rowCount} rows, columns ${body.attachment.columns.join(", ")} (${body.attachment.format ?? "CSV"}).`);
         void revalidator.revalidate();
       } else setFailure(body.error ?? { message: `The upload failed (status ${xhr.status}).`, issues: [] });
     };

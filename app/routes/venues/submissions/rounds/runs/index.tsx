@@ -8,7 +8,8 @@ import { keyMapText, parseKeyMap, SUGGESTED_MAP } from "~/workspace/namelist-map
 import { roundRunRows } from "~/workspace/round-data.server";
 import { formToRecord } from "~/workspace/run-form-fields";
 import { addRun, importNamelist, parseJsonText, saveKeyMap, savedKeyMap } from "~/workspace/run-edits.server";
-import { BULK_LIMITS, checkBulkBounds, importRuns, recordsFromJsonFiles, recordsFromNamelists, type BulkFile } from "~/workspace/run-import.server";
+import { BULK_LIMITS } from "~/workspace/run-import-limits";
+import { checkBulkBounds, importRuns, recordsFromJsonFiles, recordsFromNamelists, type BulkFile } from "~/workspace/run-import.server";
 import type { Route } from "./+types/index";
 
 export const meta: Route.MetaFunction = () => [{ title: "Runs · Runproof" }];
