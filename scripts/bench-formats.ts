@@ -1,6 +1,7 @@
 /**
  * Series formats benchmark (not a test): a 200,000-row × 6-column series as CSV, whitespace
- * columns, HDF5 and NetCDF classic. For each: our reader's time (parse) and the statistics
+ * columns, HDF5 and NetCDF classic. For each: our reader's time (parse: `readSeriesFile`, the one
+ * entry point uploads and the check job use, from a file stream) and the statistics
  * (derived.series) time, against reading the same file with the format's library alone, and
  * the peak RSS of each, every measurement in a fresh process.
  *   npx tsx scripts/bench-formats.ts            (run by npm run bench)
@@ -60,9 +61,7 @@ async function write(dir: string): Promise<Record<Format, string>> {
 /** One measurement in this (fresh) process: prints { parseMs, statsMs, rssMb }. */
 async function measure(format: Format, mode: "ours" | "library", file: string): Promise<void> {
   // modules load (and h5wasm compiles) before the clock starts, for both sides
-  const { parseCsvStream } = await import("../app/checker/csv-stream.ts");
-  const { ColumnTextReader, parseColumnMap } = await import("../app/checker/column-text.ts");
-  const { parseDatasetMap, readHdf5Columns, readNetcdfColumns } = await import("../app/checker/array-files.ts");
+  const { readSeriesFile } = await import("../app/checker/series-formats.ts");
   const { analyseSeries } = await import("../app/checker/series.ts");
   const h5wasm = (await import("h5wasm")).default;
   const { FS } = await h5wasm.ready;
@@ -70,15 +69,8 @@ async function measure(format: Format, mode: "ours" | "library", file: string): 
   const t0 = performance.now();
   let cols: Record<string, ArrayLike<number>> = {};
   if (mode === "ours") {
-    if (format === "csv") cols = await parseCsvStream(createReadStream(file), "series");
-    if (format === "dat") {
-      const r = new ColumnTextReader(parseColumnMap(MAP), "series");
-      let n = 0;
-      for await (const line of createInterface({ input: createReadStream(file), crlfDelay: Infinity })) r.addLine(line, ++n);
-      cols = r.finish();
-    }
-    if (format === "h5") cols = await readHdf5Columns(await readFile(file), parseDatasetMap(MAP), "series");
-    if (format === "nc") cols = await readNetcdfColumns(await readFile(file), parseDatasetMap(MAP), "series");
+    const kinds = { csv: "csv", dat: "columns", h5: "hdf5", nc: "netcdf" } as const;
+    cols = await readSeriesFile(createReadStream(file), { kind: "series", format: kinds[format], map: format === "csv" ? null : MAP, limitBytes: 1024 ** 3 });
   } else {
     if (format === "csv") {
       const out = NAMES.map(() => [] as number[]);

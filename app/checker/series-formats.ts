@@ -4,9 +4,9 @@
  * dataset map). Reads chunks of any size; text formats are parsed line by line as they stream,
  * array formats (whose layout needs random access) are gathered first — the caller bounds the bytes.
  */
-import { parseDatasetMap, readHdf5Columns, readNetcdfColumns } from "./array-files.ts";
+import { parseDatasetMap, readHdf5Typed, readNetcdfTyped } from "./array-files.ts";
 import { ColumnTextReader, parseColumnMap } from "./column-text.ts";
-import { ColumnBuilder, CsvFormatError, type CsvKind, type TypedColumns } from "./csv.ts";
+import { CsvFormatError, type CsvKind, type TypedColumns } from "./csv.ts";
 import { parseCsvStreamTyped } from "./csv-stream.ts";
 
 export const SERIES_FORMATS = ["csv", "columns", "hdf5", "netcdf"] as const;
@@ -104,25 +104,6 @@ async function gather(chunks: AsyncIterable<string | Uint8Array>, limitBytes: nu
   return out;
 }
 
-/** Array columns through the same checks as a CSV's rows (names, increasing t or integer l, energies ≥ 0). */
-function checked(cols: Record<string, number[]>, kind: CsvKind): TypedColumns {
-  const names = Object.keys(cols);
-  const b = new ColumnBuilder(kind);
-  b.add(names, 0);
-  const n = cols[names[0]!]!.length;
-  const row = new Array<number>(names.length);
-  for (let r = 0; r < n; r++) {
-    for (let i = 0; i < names.length; i++) row[i] = cols[names[i]!]![r]!;
-    try {
-      b.addNumbers(row, [], r + 1);
-    } catch (e) {
-      if (e instanceof CsvFormatError) throw new CsvFormatError(`${e.message.replace(/^line \d+: /, "")} (at index ${r} of the datasets)`);
-      throw e;
-    }
-  }
-  return b.finishTyped();
-}
-
 /**
  * Reads a series or spectrum in any of the formats into typed columns. Throws CsvFormatError
  * (with the line where there is one) on anything that is not a valid file of the kind.
@@ -138,8 +119,8 @@ export async function readSeriesFile(
     case "columns":
       return parseColumnTextStream(chunks, map!, opts.kind);
     case "hdf5":
-      return checked(await readHdf5Columns(await gather(chunks, opts.limitBytes), parseDatasetMap(map!), opts.kind), opts.kind);
+      return readHdf5Typed(await gather(chunks, opts.limitBytes), parseDatasetMap(map!), opts.kind);
     case "netcdf":
-      return checked(await readNetcdfColumns(await gather(chunks, opts.limitBytes), parseDatasetMap(map!), opts.kind), opts.kind);
+      return readNetcdfTyped(await gather(chunks, opts.limitBytes), parseDatasetMap(map!), opts.kind);
   }
 }
