@@ -9,13 +9,14 @@
 import { spawnSync } from "node:child_process";
 import { createReadStream, mkdtempSync, writeFileSync } from "node:fs";
 import { readFile } from "node:fs/promises";
-import { tmpdir } from "node:os";
+import { loadavg, tmpdir } from "node:os";
 import { join } from "node:path";
 import { createInterface } from "node:readline";
 import { performance } from "node:perf_hooks";
 import { parse } from "csv-parse";
 
 const ROWS = 200_000;
+const REPEATS = Number(process.env.BENCH_REPEATS ?? 3);
 const NAMES = ["t", "kineticEnergy", "magneticEnergy", "Re", "Rm", "Nu"];
 const MAP = NAMES.join(",");
 type Format = "csv" | "dat" | "h5" | "nc";
@@ -113,12 +114,19 @@ async function main() {
   const [, , cmd, format, mode, file] = process.argv;
   if (cmd === "--measure") return measure(format as Format, mode as "ours" | "library", file!);
   const files = await write(mkdtempSync(join(tmpdir(), "rp-bench-")));
-  process.stdout.write(`\n${ROWS} rows × ${NAMES.length} columns; each number from a fresh process\n`);
+  process.stdout.write(`\n${ROWS} rows × ${NAMES.length} columns; each number the median of ${REPEATS} fresh processes; load average ${loadavg().map((l) => l.toFixed(1)).join(" ")}\n`);
   process.stdout.write(`${"format".padEnd(10)}${"ours parse".padStart(12)}${"library".padStart(10)}${"ratio".padStart(8)}${"statistics".padStart(12)}${"RSS ours".padStart(10)}${"RSS lib".padStart(9)}\n`);
   for (const format of ["csv", "dat", "h5", "nc"] as const) {
-    const one = (mode: string) => JSON.parse(spawnSync(process.execPath, [...process.execArgv, process.argv[1]!, "--measure", format, mode, files[format]], { encoding: "utf8" }).stdout.trim()) as { parseMs: number; statsMs: number; rssMb: number };
-    const ours = one("ours");
-    const lib = one("library");
+    const once = (mode: string) => JSON.parse(spawnSync(process.execPath, [...process.execArgv, process.argv[1]!, "--measure", format, mode, files[format]], { encoding: "utf8" }).stdout.trim()) as { parseMs: number; statsMs: number; rssMb: number };
+    // On a shared, loaded machine one process can stall: the median of REPEATS fresh processes, ours and the library's alternating.
+    const samples = { ours: [] as ReturnType<typeof once>[], library: [] as ReturnType<typeof once>[] };
+    for (let k = 0; k < REPEATS; k++) for (const mode of ["ours", "library"] as const) samples[mode].push(once(mode));
+    const median = (xs: ReturnType<typeof once>[]) => {
+      const at = (key: "parseMs" | "statsMs" | "rssMb") => [...xs.map((x) => x[key])].sort((a, b) => a - b)[Math.floor(xs.length / 2)]!;
+      return { parseMs: at("parseMs"), statsMs: at("statsMs"), rssMb: at("rssMb") };
+    };
+    const ours = median(samples.ours);
+    const lib = median(samples.library);
     process.stdout.write(
       `${format.padEnd(10)}${`${ours.parseMs.toFixed(0)} ms`.padStart(12)}${`${lib.parseMs.toFixed(0)} ms`.padStart(10)}${(ours.parseMs / lib.parseMs).toFixed(2).padStart(8)}${`${ours.statsMs.toFixed(0)} ms`.padStart(12)}${`${ours.rssMb.toFixed(0)} MB`.padStart(10)}${`${lib.rssMb.toFixed(0)} MB`.padStart(9)}\n`,
     );
