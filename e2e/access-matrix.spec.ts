@@ -115,6 +115,8 @@ const RULES: Record<string, Rule> = {
       release: { editor: "-aa-" },
     },
   },
+  // The authors' digest sent now: the venue's editors and the admin, once the round is sent (a POST only).
+  "routes/venues/submissions/rounds/digest.ts": { kind: "round", get: {}, post: { "": { editor: "-aaa", admin: "-aaa" } } },
   "routes/venues/submissions/new.tsx": { kind: "global", get: SIGNED_IN, post: { ...Object.fromEntries(PEOPLE.map((p) => [p, "a"])), anonymous: "s" } },
   "routes/venues/desk.tsx": {
     kind: "global",

@@ -288,4 +288,4 @@ function VersionHistory({ d }: { d: Route.ComponentProps["loaderData"] }) {
 }
 
 /** How a version arrived, in words. */
-const ORIGIN_WORDS: Record<string, string> = { form: "entered in the form", json: "uploaded as JSON", namelist: "imported from a namelist", api: "sent through the API" };
+const ORIGIN_WORDS: Record<string, string> = { form: "entered in the form", json: "uploaded as JSON", namelist: "imported from a namelist", api: "sent through the API", seed: "from the demo data" };
