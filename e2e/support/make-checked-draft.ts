@@ -24,7 +24,7 @@ export async function makeCheckedDraft(db: Database, title: string) {
   const [author] = await db.select({ id: user.id }).from(user).where(eq(user.email, demoPeople.find((d) => d.key === "author")!.email));
   const runIds: Record<string, string> = {};
   for (const label of ["ref-A", "strat-B"]) {
-    await createRun(db, { submissionId, roundId: round!.id, record: parseRunRecord(JSON.parse(example(`runs/${label}.json`))), origin: "seed", userId: author!.id });
+    await db.transaction((tx) => createRun(tx, { submissionId, roundId: round!.id, record: parseRunRecord(JSON.parse(example(`runs/${label}.json`))), origin: "seed", userId: author!.id }));
     const [run] = await db.select({ id: runs.id }).from(runs).innerJoin(roundRuns, eq(roundRuns.runId, runs.id)).where(and(eq(runs.label, label), eq(roundRuns.roundId, round!.id)));
     runIds[label] = run!.id;
     await attachCsv(db, {

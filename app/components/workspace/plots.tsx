@@ -165,13 +165,13 @@ export function SpectrumChart({ plot, title }: { plot: SpectrumPlot; title: stri
         {() => (
           <div className="h-64" role="img" aria-label="Energy spectrum against degree">
             <ResponsiveContainer width="100%" height="100%">
-              <LineChart data={positive} margin={{ left: 8, right: 16, top: 8, bottom: 8 }}>
+              <LineChart data={positive} margin={{ left: 24, right: 24, top: 24, bottom: 24 }}>
                 <CartesianGrid stroke="#d8d1bf" strokeDasharray="3 3" />
-                <XAxis dataKey="l" type="number" domain={[0, "dataMax"]} label={{ value: "degree ℓ", position: "insideBottom", offset: -4 }} />
-                <YAxis scale="log" domain={["auto", "auto"]} tickFormatter={formatNumber} width={70} allowDataOverflow />
-                <ReferenceLine x={plot.truncationDegree} stroke="#9e2f1c" strokeDasharray="4 2" label={`ℓ_max = ${plot.truncationDegree}`} />
+                <XAxis dataKey="l" type="number" domain={[0, "dataMax"]} label={{ value: "degree ℓ", position: "insideBottom", offset: -14 }} />
+                <YAxis scale="log" domain={["auto", "auto"]} tickFormatter={formatNumber} width={72} allowDataOverflow label={{ value: "energy per degree", angle: -90, position: "left", offset: 12, style: { textAnchor: "middle" } }} />
+                <ReferenceLine x={plot.truncationDegree} stroke="#9e2f1c" strokeDasharray="4 2" label={{ value: `ℓ_max = ${plot.truncationDegree}`, position: "insideTopRight", fill: "#9e2f1c" }} />
                 <Tooltip formatter={(v) => formatNumber(v)} labelFormatter={(v) => `ℓ = ${v}`} />
-                <Legend />
+                <Legend verticalAlign="top" height={24} />
                 {plot.columns.map((c, i) => (
                   <Line key={c} type="linear" dataKey={c} name={c} stroke={COLOURS[i % COLOURS.length]} dot={false} isAnimationActive={false} />
                 ))}

@@ -69,10 +69,6 @@ export default function Claim({ loaderData: d, params }: Route.ComponentProps) {
   const runId = new Map(d.runs.map((r) => [r.label, r.id]));
   return (
     <div className="flex flex-col gap-6">
-      <StatedTable rows={d.stated} runIds={Object.fromEntries(runId)} params={p} />
-      {d.overlay.length > 1 ? (
-        <ComparisonChart runs={d.overlay} title={`The claim's runs overlaid: ${d.overlay.map((o) => o.label).join(", ")} (downsampled series)`} />
-      ) : null}
       <section className="card" aria-label="Claim">
         <ClaimEditor
           initial={claimDraftOf(d.claim)}
@@ -90,6 +86,10 @@ export default function Claim({ loaderData: d, params }: Route.ComponentProps) {
           </Form>
         ) : null}
       </section>
+      <StatedTable rows={d.stated} runIds={Object.fromEntries(runId)} params={p} />
+      {d.overlay.length > 1 ? (
+        <ComparisonChart runs={d.overlay} title={`The claim's runs overlaid: ${d.overlay.map((o) => o.label).join(", ")} (downsampled series)`} />
+      ) : null}
       <FlagsPanel
         flags={d.flags}
         checkError={d.checkError}

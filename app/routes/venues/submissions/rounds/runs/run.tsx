@@ -27,6 +27,20 @@ async function runOfRound(db: Parameters<typeof roundRunList>[0], roundId: strin
   return run;
 }
 
+/** Symbols for the derived values whose label is words only. */
+const DERIVED_SYMBOLS: Record<string, string> = {
+  tangentCylinderLatitudeDeg: "θ_TC",
+  layerTangentLatitudeDeg: "θ_L",
+  layerThicknessKm: "d_L",
+  "runLength.viscous": "T/τ_ν",
+  "runLength.magnetic": "T/τ_η",
+  "runLength.thermal": "T/τ_κ",
+  "runLength.rotations": "T·Ω/2π",
+  "runLength.overturns": "T/τ_U",
+  "averagingWindow.magnetic": "W/τ_η",
+  "averagingWindow.overturns": "W/τ_U",
+};
+
 export async function loader(args: Route.LoaderArgs) {
   const { db, access } = await requireRound(args, "read-runs");
   const { round } = access;
@@ -43,7 +57,9 @@ export async function loader(args: Route.LoaderArgs) {
     const v = valueAt(key);
     if (typeof v !== "number" || !Number.isFinite(v)) return [];
     const [symbol, ...words] = label.split(", ");
-    return [{ key, symbol: symbol!, name: words.join(", "), value: sig4(v) }];
+    // Labels without a symbol of their own ("run length, magnetic diffusion times") get one here.
+    const own = DERIVED_SYMBOLS[key];
+    return [{ key, symbol: own ?? symbol!, name: own ? label : words.join(", "), value: sig4(v) }];
   });
   // A frozen round shows only the versions up to the one it used.
   const visible = history.filter((h) => h.version <= run.version || round.state === "draft");
