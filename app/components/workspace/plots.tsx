@@ -210,7 +210,17 @@ export function ParameterSpaceChart({ points }: { points: { label: string; E: nu
                   <XAxis dataKey="RaRotating" type="number" scale="log" domain={LOG_PAD} tickFormatter={formatNumber} name="Ra (rotating)" label={{ value: "Ra (rotating)", position: "insideBottom", offset: -18 }} />
                   <YAxis dataKey="E" type="number" scale="log" domain={LOG_PAD} tickFormatter={formatNumber} name="E" width={72} label={{ value: "E", angle: -90, position: "left", offset: 12, style: { textAnchor: "middle" } }} />
                   <ZAxis range={[60, 60]} />
-                  <Tooltip formatter={(v) => formatNumber(v)} />
+                  {/* Hovering a point names its runs, also when their label had no free place on the plot. */}
+                  <Tooltip
+                    content={({ active, payload }) => {
+                      const p = active ? (payload?.[0]?.payload as { label: string; E: number; RaRotating: number } | undefined) : undefined;
+                      return p ? (
+                        <div className="rounded border border-rule bg-vellum p-2 text-caption" data-testid="parameter-tooltip">
+                          <span className="font-mono font-semibold">{p.label}</span>: E = {formatNumber(p.E)}, Ra (rotating) = {formatNumber(p.RaRotating)}
+                        </div>
+                      ) : null;
+                    }}
+                  />
                   <Scatter data={known} fill="#1f5f5b" isAnimationActive={false} name="runs" />
                   <PointLabels points={known} />
                 </ScatterChart>
