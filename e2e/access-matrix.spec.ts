@@ -263,7 +263,9 @@ test("every route answers every kind of person as the rules say, in every round 
   };
   let scanned = 0;
   const jobs: Job[] = [];
-  for (const r of flat) {
+  // MATRIX_ONLY=parts,of,route,files checks only those routes (while working on them); every rule is still required.
+  const only = process.env.MATRIX_ONLY?.split(",").filter(Boolean);
+  for (const r of only?.length ? flat.filter((x) => only.some((o) => x.file.includes(o))) : flat) {
     const rule = RULES[r.file]!;
     if (rule.kind === "skip") continue;
     const wantsData = r.isPage && !(rule.kind === "global" && rule.noData);
@@ -341,7 +343,7 @@ test("every route answers every kind of person as the rules say, in every round 
   };
   await Promise.all(Array.from({ length: 4 }, worker));
   console.log(`access matrix: ${jobs.length} cells checked over ${flat.length} routes; ${scanned} responses scanned for leaks`);
-  expect(scanned, "responses scanned for leaks").toBeGreaterThan(40);
+  if (!only?.length) expect(scanned, "responses scanned for leaks").toBeGreaterThan(40);
   for (const ctx of contexts.values()) await ctx.dispose();
   expect(failures, failures.slice(0, 60).join("\n")).toEqual([]);
 });
