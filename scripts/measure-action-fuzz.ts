@@ -60,13 +60,14 @@ async function main() {
       await new Promise((r) => setTimeout(r, 200));
     }
     const { world, authorToken } = await makeFuzzWorld(db, `fz${Date.now()}`);
-    const targets = actionTargets(world);
+    const only = process.env.FUZZ_ONLY ? new RegExp(process.env.FUZZ_ONLY) : null;
+    const targets = actionTargets(world).filter((t) => !only || only.test(t.file));
     const sessions: Partial<Record<Who, Session>> = { anonymous: { cookie: "" } };
     for (const who of new Set(targets.map((t) => t.who))) if (who !== "anonymous") sessions[who] = await signIn(origin, world.people[who].email, WORLD_PASSWORD);
     sessions.author!.token = authorToken;
     const load0 = loadavg()[0]!;
     const t0 = performance.now();
-    const { findings, reports } = await fuzzActions({ origin, sql, targets, sessions, ids: worldIds(world), numRuns: cases, log: (l) => console.error(l) });
+    const { findings, reports } = await fuzzActions({ origin, sql, targets, sessions, ids: worldIds(world), numRuns: cases, log: (l) => console.error(l), alive: () => server.exitCode === null && server.signalCode === null });
     const minutes = (performance.now() - t0) / 60_000;
     const alive = server.exitCode === null && worker.exitCode === null;
     const total = reports.reduce((n, r) => n + r.cases, 0);
@@ -81,6 +82,9 @@ responses ≥ 500: **${fiveHundreds}**; refused requests that left rows: **${lef
 | --- | --- | --- | --- |
 ${rows.join("\n")}
 `;
+    const byKind = new Map<string, number>();
+    for (const f of findings) byKind.set(`${f.status} ${f.target} ${f.what.slice(0, 80)}`, (byKind.get(`${f.status} ${f.target} ${f.what.slice(0, 80)}`) ?? 0) + 1);
+    for (const [k, n] of byKind) console.error(`FINDING ×${n}: ${k}`);
     for (const f of findings.slice(0, 30)) console.error(`FINDING ${f.status} ${f.target}: ${f.what}\n   sent: ${f.request}`);
     for (const line of bad.slice(0, 30)) console.error(`LOG ${line}`);
     const doc = "docs/reliability.md";

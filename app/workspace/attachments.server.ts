@@ -103,6 +103,10 @@ export async function attachCsv(db: Database, opts: AttachOptions): Promise<{ at
   let attachmentId: string;
   try {
     attachmentId = await db.transaction(async (tx) => {
+      // Raising the round's change counter first takes the round's row lock, so two uploads to one
+      // run wait for each other here: the second then sees the first as current and retires it
+      // (done last, both stayed "current").
+      await markRoundChanged(tx, opts.roundId);
       const [file] = await tx
         .insert(storedFiles)
         .values({ key, filename: opts.filename, contentType: "text/csv", size, sha256: hash.digest("hex"), uploadedBy: opts.userId })
@@ -115,7 +119,6 @@ export async function attachCsv(db: Database, opts: AttachOptions): Promise<{ at
         .insert(attachments)
         .values({ runVersionId: pointer.runVersionId, kind: opts.kind, fileId: file!.id, columns: names, rowCount })
         .returning({ id: attachments.id });
-      await markRoundChanged(tx, opts.roundId);
       return row!.id;
     });
   } catch (e) {

@@ -231,6 +231,8 @@ export async function fuzzActions(opts: {
   numRuns: number;
   seed?: number;
   log?: (line: string) => void;
+  /** Stops early when the server under test has gone (a crash is the finding then). */
+  alive?: () => boolean;
 }) {
   const findings: Finding[] = [];
   const reports: TargetReport[] = [];
@@ -240,6 +242,10 @@ export async function fuzzActions(opts: {
     const report: TargetReport = { file: target.file, url: target.url, who: target.who, cases: 0, statuses: {} };
     const cases = fc.sample(caseArb(target, opts.ids), { numRuns: opts.numRuns, seed: opts.seed });
     for (const c of cases) {
+      if (opts.alive && !opts.alive()) {
+        findings.push({ target: target.url, status: 0, what: "the server process has exited", request: "" });
+        return { findings, reports };
+      }
       const { body, type } = encode(target, c);
       const headers: Record<string, string> = { origin: opts.origin };
       if (type) headers["content-type"] = type;
