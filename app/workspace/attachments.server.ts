@@ -8,7 +8,7 @@ import { parseCsvStreamTyped } from "~/checker/csv-stream";
 import { storage } from "~/storage/storage.server";
 import { markRoundChanged, requestRecheck } from "./recheck.server";
 import { draftRoundById } from "./rounds.server";
-import { InvalidInput, PayloadTooLarge } from "./types";
+import { InvalidInput, PayloadTooLarge, StorageUnavailable } from "./types";
 
 export type AttachOptions = {
   roundId: string;
@@ -42,6 +42,9 @@ export async function attachCsv(db: Database, opts: AttachOptions): Promise<{ at
   let size = 0;
   let tooLarge = false;
   let uploaded = false;
+  // Set when object storage fails (down, refusing): reading stops and the caller is told to retry.
+  let storageError: unknown = null;
+  toStorage.on("error", () => {});
 
   // One pass over the body: count, hash, forward to storage (respecting its back-pressure), parse.
   async function* chunks() {
@@ -57,6 +60,7 @@ export async function attachCsv(db: Database, opts: AttachOptions): Promise<{ at
             `The file "${opts.filename}" is larger than the upload limit of ${mb(opts.limitBytes)}; nothing was stored. Thin the series (e.g. every n-th row) or split it, then upload again.`,
           );
         }
+        if (storageError) throw storageError;
         hash.update(value);
         // "close" too: after a failure the stream is destroyed and will never drain.
         if (!toStorage.write(value)) {
@@ -74,7 +78,10 @@ export async function attachCsv(db: Database, opts: AttachOptions): Promise<{ at
   }
 
   const upload = storage.put(key, toStorage, "text/csv").then(() => (uploaded = true));
-  upload.catch(() => {});
+  upload.catch((e) => {
+    storageError = e;
+    toStorage.destroy();
+  });
   let columns: Record<string, Float64Array>;
   try {
     // The parse only validates (line by line, chunk by chunk, so other requests keep being served);
@@ -89,6 +96,9 @@ export async function attachCsv(db: Database, opts: AttachOptions): Promise<{ at
     await storage.remove(key).catch(() => {});
     if (tooLarge) {
       throw e instanceof PayloadTooLarge ? e : new PayloadTooLarge(`The file "${opts.filename}" is larger than the upload limit of ${mb(opts.limitBytes)}; nothing was stored.`);
+    }
+    if (storageError) {
+      throw new StorageUnavailable(`The file "${opts.filename}" could not be stored: file storage is not answering. Nothing was saved; upload it again in a minute.`);
     }
     if (e instanceof CsvFormatError) {
       throw new InvalidInput(`The ${opts.kind} CSV "${opts.filename}" could not be read; nothing was stored. Fix the line named below and upload again.`, [
