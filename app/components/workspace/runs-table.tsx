@@ -23,9 +23,10 @@ export function formatNumber(v: unknown): string {
 }
 
 /** One row per run with key controls, derived numbers and flag counts; sorted by any column. */
-export function RunsTable({ rows, runHref, csvHref, source }: { rows: RunRow[]; runHref: (row: RunRow) => string; csvHref?: string; source?: string }) {
-  // With `source`, sorting and paging go through a fetcher against the round's API route.
-  const { rows: sorted, sort, setSort, page, pages, setPage, pending } = useRunsPage(rows, source);
+export function RunsTable({ rows, total, runHref, csvHref, source }: { rows: RunRow[]; total?: number; runHref: (row: RunRow) => string; csvHref?: string; source?: string }) {
+  // With `source`, sorting and paging go through a fetcher against the round's API route; `rows`
+  // is then the first page (by label) of `total` runs.
+  const { rows: sorted, sort, setSort, page, pages, setPage, pending } = useRunsPage(rows, source, total);
   return (
     <div>
       <div className="overflow-x-auto">
