@@ -77,6 +77,7 @@ export default [
             route("packet.pdf", "routes/venues/submissions/rounds/packet-pdf.ts"),
             route("review", "routes/venues/submissions/rounds/review.tsx"),
             route("desk", "routes/venues/submissions/rounds/desk.tsx"),
+            route("digest", "routes/venues/submissions/rounds/digest.ts"),
           ]),
         ]),
       ]),

@@ -122,6 +122,8 @@ const RULES: Record<string, Rule> = {
       release: { editor: "-aa-" },
     },
   },
+  // The authors' digest sent now: the venue's editors and the admin, once the round is sent (a POST only).
+  "routes/venues/submissions/rounds/digest.ts": { kind: "round", get: {}, post: { "": { editor: "-aaa", admin: "-aaa" } } },
   "routes/venues/submissions/new.tsx": { kind: "global", get: SIGNED_IN, post: { ...Object.fromEntries(PEOPLE.map((p) => [p, "a"])), anonymous: "s" } },
   "routes/venues/desk.tsx": {
     kind: "global",
@@ -271,7 +273,9 @@ test("every route answers every kind of person as the rules say, in every round 
   };
   let scanned = 0;
   const jobs: Job[] = [];
-  for (const r of flat) {
+  // MATRIX_ONLY=parts,of,route,files checks only those routes (while working on them); every rule is still required.
+  const only = process.env.MATRIX_ONLY?.split(",").filter(Boolean);
+  for (const r of only?.length ? flat.filter((x) => only.some((o) => x.file.includes(o))) : flat) {
     const rule = RULES[r.file]!;
     if (rule.kind === "skip") continue;
     const wantsData = r.isPage && !(rule.kind === "global" && rule.noData);
@@ -349,7 +353,7 @@ test("every route answers every kind of person as the rules say, in every round 
   };
   await Promise.all(Array.from({ length: 4 }, worker));
   console.log(`access matrix: ${jobs.length} cells checked over ${flat.length} routes; ${scanned} responses scanned for leaks`);
-  expect(scanned, "responses scanned for leaks").toBeGreaterThan(40);
+  if (!only?.length) expect(scanned, "responses scanned for leaks").toBeGreaterThan(40);
   for (const ctx of contexts.values()) await ctx.dispose();
   expect(failures, failures.slice(0, 60).join("\n")).toEqual([]);
 });

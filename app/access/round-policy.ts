@@ -40,6 +40,7 @@ export const ACTIONS = [
   "review",
   "invite",
   "decide",
+  "send-digest", // mail the authors this submission's digest now, outside its schedule
 ] as const;
 export type Action = (typeof ACTIONS)[number];
 
@@ -76,16 +77,17 @@ const GRANTS: Record<Relation, Grants> = {
     withdrawn: AUTHOR_READS,
   },
   editor: {
-    sent: [...EDITOR_READS, "invite", "decide"],
-    "under-review": [...EDITOR_READS, "invite", "decide"],
-    decided: [...EDITOR_READS, "read-decision"],
+    sent: [...EDITOR_READS, "invite", "decide", "send-digest"],
+    "under-review": [...EDITOR_READS, "invite", "decide", "send-digest"],
+    decided: [...EDITOR_READS, "read-decision", "send-digest"],
     withdrawn: EDITOR_READS,
   },
   // The instance's administrator oversees but does not handle: reads what an editor reads.
+  // …and may send a submission's digest out of schedule, as its editors may.
   admin: {
-    sent: EDITOR_READS,
-    "under-review": EDITOR_READS,
-    decided: [...EDITOR_READS, "read-decision"],
+    sent: [...EDITOR_READS, "send-digest"],
+    "under-review": [...EDITOR_READS, "send-digest"],
+    decided: [...EDITOR_READS, "read-decision", "send-digest"],
     withdrawn: EDITOR_READS,
   },
   reviewer: {

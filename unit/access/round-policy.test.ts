@@ -33,6 +33,8 @@ const TABLE: Record<Action, Record<Relation, string>> = {
   "review": { author: ".....", "co-author": ".....", editor: ".....", reviewer: ".xx..", invited: ".....", admin: ".....", none: "....." },
   "invite": { author: ".....", "co-author": ".....", editor: ".xx..", reviewer: ".....", invited: ".....", admin: ".....", none: "....." },
   "decide": { author: ".....", "co-author": ".....", editor: ".xx..", reviewer: ".....", invited: ".....", admin: ".....", none: "....." },
+  // The authors' digest, sent now by the venue's editors or the instance admin; never on a draft or a withdrawn submission.
+  "send-digest": { author: ".....", "co-author": ".....", editor: ".xxx.", reviewer: ".....", invited: ".....", admin: ".xxx.", none: "....." },
 };
 
 describe("access policy", () => {

@@ -17,6 +17,9 @@ import { roundRunList, runVersionHistory } from "~/workspace/runs.server";
 import { claimsNamingRun, deleteRun } from "~/workspace/removals.server";
 import { duplicateRun } from "~/workspace/run-template.server";
 import { savedSeriesMaps } from "~/workspace/series-maps.server";
+import { diffRunRecords } from "~/workspace/run-diff";
+import type { SeriesPlot } from "~/workspace/view-types";
+import { SeriesStatsTable } from "~/components/workspace/series-stats";
 import type { Route } from "./+types/run";
 
 export const meta: Route.MetaFunction = ({ data }) => [{ title: `Run ${data?.run.label ?? ""} · Runproof` }];
@@ -26,6 +29,20 @@ async function runOfRound(db: Parameters<typeof roundRunList>[0], roundId: strin
   if (!run) throw data("Not found", { status: 404 });
   return run;
 }
+
+/** Symbols for the derived values whose label is words only. */
+const DERIVED_SYMBOLS: Record<string, string> = {
+  tangentCylinderLatitudeDeg: "θ_TC",
+  layerTangentLatitudeDeg: "θ_L",
+  layerThicknessKm: "d_L",
+  "runLength.viscous": "T/τ_ν",
+  "runLength.magnetic": "T/τ_η",
+  "runLength.thermal": "T/τ_κ",
+  "runLength.rotations": "T·Ω/2π",
+  "runLength.overturns": "T/τ_U",
+  "averagingWindow.magnetic": "W/τ_η",
+  "averagingWindow.overturns": "W/τ_U",
+};
 
 export async function loader(args: Route.LoaderArgs) {
   const { db, access } = await requireRound(args, "read-runs");
@@ -43,13 +60,30 @@ export async function loader(args: Route.LoaderArgs) {
     const v = valueAt(key);
     if (typeof v !== "number" || !Number.isFinite(v)) return [];
     const [symbol, ...words] = label.split(", ");
-    return [{ key, symbol: symbol!, name: words.join(", "), value: sig4(v) }];
+    // Labels without a symbol of their own ("run length, magnetic diffusion times") get one here.
+    const own = DERIVED_SYMBOLS[key];
+    return [{ key, symbol: own ?? symbol!, name: own ? label : words.join(", "), value: sig4(v) }];
   });
+  // A frozen round shows only the versions up to the one it used.
+  const visible = history.filter((h) => h.version <= run.version || round.state === "draft");
+  // Version diff: ?from=&to= name two versions of the visible history; by default the one before against this round's.
+  const url = new URL(args.request.url);
+  const pick = (name: string, fallback: number | undefined) => {
+    const n = Number(url.searchParams.get(name));
+    return visible.some((h) => h.version === n) ? n : fallback;
+  };
+  const toVersion = pick("to", run.version);
+  const fromVersion = pick("from", visible.find((h) => h.version < (toVersion ?? 0))?.version);
+  const recordOf = (v: number | undefined) => visible.find((h) => h.version === v)?.record;
+  const diff = fromVersion !== undefined && toVersion !== undefined && fromVersion !== toVersion ? { from: fromVersion, to: toVersion, groups: diffRunRecords(recordOf(fromVersion), recordOf(toVersion)) } : null;
+  const series = derived.series && typeof derived.series === "object" ? (derived.series as NonNullable<SeriesPlot["stats"]>) : null;
   return {
+    diff,
+    series,
     checkError: round!.checkError,
     run: { runId: run.runId, label: run.label, version: run.version, origin: run.origin, values: recordToValues(run.record), record: run.record },
     // A frozen round shows only the versions up to the one it used.
-    history: history.filter((h) => h.version <= run.version || round.state === "draft").map((h) => ({ version: h.version, origin: h.origin, createdAt: h.createdAt.toISOString() })),
+    history: visible.map((h) => ({ version: h.version, origin: h.origin, createdAt: h.createdAt.toISOString() })),
     plots,
     recomputed,
     groups: recordLines(run.record),
@@ -107,8 +141,7 @@ export default function Run({ loaderData: d, actionData, params }: Route.Compone
           Run <span className="font-mono">{d.run.label}</span>
         </h3>
         <p className="text-caption text-basalt-soft">
-          Version {d.run.version} ({d.run.origin}) is the one this round uses. History:{" "}
-          {d.history.map((h) => `v${h.version} (${h.origin}, ${h.createdAt.slice(0, 10)})`).join(" · ")}
+          Version {d.run.version} ({ORIGIN_WORDS[d.run.origin] ?? d.run.origin}) is the one this round uses; earlier versions and what changed are listed below.
         </p>
         {copiedFrom ? (
           <p role="status" className="mt-2 text-lichen" data-testid="run-copied">
@@ -178,8 +211,8 @@ export default function Run({ loaderData: d, actionData, params }: Route.Compone
               <tbody>
                 {d.recomputed.map((r) => (
                   <tr key={r.key}>
-                    <th scope="row" className="pr-3 text-left font-semibold" title={r.name || undefined}>
-                      {r.symbol}
+                    <th scope="row" className="pr-3 text-left font-semibold">
+                      <abbr title={r.name || r.symbol} className="cursor-help no-underline">{r.symbol}</abbr>
                     </th>
                     <td className="pr-3 text-basalt-soft">{r.name}</td>
                     <td className="font-mono">{r.value}</td>
@@ -189,8 +222,15 @@ export default function Run({ loaderData: d, actionData, params }: Route.Compone
             </table>
           )}
           <p className="mt-2 text-caption text-basalt-soft">Four significant figures, from the stated parameters under the run's declared conventions.</p>
+          <h4 className="mt-4 font-semibold">Series statistics</h4>
+          {d.series && Object.keys(d.series).length ? (
+            <SeriesStatsTable stats={d.series} />
+          ) : (
+            <p className="text-caption">No time series attached to this version, so no series statistics.</p>
+          )}
         </section>
       </div>
+      <VersionHistory d={d} />
       <FlagsPanel
         flags={d.flags}
         checkError={d.checkError}
@@ -211,7 +251,7 @@ export default function Run({ loaderData: d, actionData, params }: Route.Compone
             Analysing the uploaded file… its plot and statistics appear here when the check is done.
           </p>
         ) : null}
-        {d.plots.series ? <SeriesChart plot={d.plots.series} title="Time series" /> : d.plots.analysing ? null : <p className="text-caption">No time series attached.</p>}
+        {d.plots.series ? <SeriesChart plot={d.plots.series} title="Time series" showStats={false} /> : d.plots.analysing ? null : <p className="text-caption">No time series attached.</p>}
         {d.plots.spectrum ? <SpectrumChart plot={d.plots.spectrum} title="Spectrum" /> : <p className="text-caption">No spectrum attached.</p>}
         {d.plots.files.length ? (
           <ul className="text-caption" data-testid="attachments">
@@ -254,3 +294,72 @@ export default function Run({ loaderData: d, actionData, params }: Route.Compone
     </div>
   );
 }
+
+/** Every version of the run, and what changed between any two of them (chosen in the URL). */
+function VersionHistory({ d }: { d: Route.ComponentProps["loaderData"] }) {
+  return (
+    <section aria-labelledby="versions-h" className="card" data-testid="run-versions">
+      <h3 id="versions-h" className="text-lead">
+        Versions and what changed
+      </h3>
+      <ol className="mt-1 text-caption">
+        {d.history.map((h) => (
+          <li key={h.version}>
+            Version {h.version} — {ORIGIN_WORDS[h.origin] ?? h.origin}, {h.createdAt.slice(0, 16).replace("T", " ")} UTC{h.version === d.run.version ? " (used by this round)" : ""}
+          </li>
+        ))}
+      </ol>
+      {d.history.length > 1 ? (
+        <Form method="get" className="mt-2 flex flex-wrap items-end gap-3 text-caption" preventScrollReset>
+          <label className="flex flex-col">
+            From version
+            <select name="from" defaultValue={d.diff?.from} className="field-input">
+              {d.history.map((h) => <option key={h.version} value={h.version}>{h.version}</option>)}
+            </select>
+          </label>
+          <label className="flex flex-col">
+            To version
+            <select name="to" defaultValue={d.diff?.to} className="field-input">
+              {d.history.map((h) => <option key={h.version} value={h.version}>{h.version}</option>)}
+            </select>
+          </label>
+          <button type="submit" className="btn-quiet">Compare</button>
+        </Form>
+      ) : (
+        <p className="mt-1 text-caption">Only one version so far: nothing to compare.</p>
+      )}
+      {d.diff ? (
+        <div className="mt-3" data-testid="version-diff">
+          <p className="text-caption font-semibold">
+            Version {d.diff.from} → version {d.diff.to}: {d.diff.groups.reduce((n, g) => n + g.changes.length, 0)} field(s) changed
+          </p>
+          {d.diff.groups.length === 0 ? <p className="text-caption">The two versions hold the same values.</p> : null}
+          {d.diff.groups.map((g) => (
+            <table key={g.group} className="mt-2 w-full text-left text-caption">
+              <caption className="text-left font-semibold">{g.group}</caption>
+              <thead>
+                <tr className="border-b border-rule">
+                  <th scope="col" className="pr-3">Field</th>
+                  <th scope="col" className="pr-3">Version {d.diff!.from}</th>
+                  <th scope="col">Version {d.diff!.to}</th>
+                </tr>
+              </thead>
+              <tbody className="font-mono">
+                {g.changes.map((c) => (
+                  <tr key={c.path} className="border-b border-rule" data-testid="diff-row">
+                    <th scope="row" className="pr-3 text-left font-normal">{c.path}</th>
+                    <td className="pr-3 text-ember"><del>{c.from}</del></td>
+                    <td className="text-lichen"><ins className="no-underline">{c.to}</ins></td>
+                  </tr>
+                ))}
+              </tbody>
+            </table>
+          ))}
+        </div>
+      ) : null}
+    </section>
+  );
+}
+
+/** How a version arrived, in words. */
+const ORIGIN_WORDS: Record<string, string> = { form: "entered in the form", json: "uploaded as JSON", namelist: "imported from a namelist", api: "sent through the API", seed: "from the demo data" };
