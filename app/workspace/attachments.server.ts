@@ -122,13 +122,15 @@ export async function attachCsv(db: Database, opts: AttachOptions): Promise<{ at
     if (tooLarge) {
       throw e instanceof PayloadTooLarge ? e : new PayloadTooLarge(`The file "${opts.filename}" is larger than the upload limit of ${mb(opts.limitBytes)}; nothing was stored.`);
     }
-    if (storageError) {
-      throw new StorageUnavailable(`The file "${opts.filename}" could not be stored: file storage is not answering. Nothing was saved; upload it again in a minute.`);
-    }
+    // A file that could not be read first: destroying the stream after it aborts the upload too,
+    // which is no storage fault.
     if (e instanceof CsvFormatError) {
       throw new InvalidInput(`The ${opts.kind} ${FORMAT_NAMES[format]} file "${opts.filename}" could not be read; nothing was stored. ${fixHint(format, opts.kind)}`, [
         { path: e.line !== undefined ? `line ${e.line}` : "file", message: e.message.replace(/^line \d+: /, "") },
       ]);
+    }
+    if (storageError) {
+      throw new StorageUnavailable(`The file "${opts.filename}" could not be stored: file storage is not answering. Nothing was saved; upload it again in a minute.`);
     }
     throw e;
   }
