@@ -297,7 +297,10 @@ export function FlagsTable({ flags, mode, runHref, title = "Flags" }: { flags: F
   const [remarkFor, setRemarkFor] = useState<string | null>(null);
   const [focus, setFocus] = useState<string | null>(null);
   const containerRef = useRef<HTMLDivElement>(null);
-  const focusMoved = useRef(false);
+  // Bumped with every focus change made by keys, so the effect below moves the browser's focus
+  // in the same commit as the new `focus` (a ref flag could be consumed by an unrelated render).
+  const [focusRequest, setFocusRequest] = useState(0);
+  const requestFocus = useCallback(() => setFocusRequest((n) => n + 1), []);
 
   const items: Item[] = [];
   groups.forEach((g, i) => {
@@ -336,15 +339,15 @@ export function FlagsTable({ flags, mode, runHref, title = "Flags" }: { flags: F
       sendVerdict(id, verdict, reason);
       setReasonFor(null);
       setFocus(`f:${id}`);
-      focusMoved.current = true;
+      requestFocus();
     },
-    [sendVerdict],
+    [sendVerdict, requestFocus],
   );
   const onCancelReason = useCallback((id: string) => {
     setReasonFor(null);
     setFocus(`f:${id}`);
-    focusMoved.current = true;
-  }, []);
+    requestFocus();
+  }, [requestFocus]);
   const onToggle = useCallback((id: string) => setExpanded((e) => ({ ...e, [id]: !e[id] })), []);
   const onFocusRow = useCallback((id: string) => setFocus(`f:${id}`), []);
   const toggleGroup = (key: string, index: number) => setOpen((o) => ({ ...o, [`${query.group}:${key}`]: !isOpen(key, index) }));
@@ -352,13 +355,12 @@ export function FlagsTable({ flags, mode, runHref, title = "Flags" }: { flags: F
 
   // Move the browser's focus to the focused item after j/k (never while the person types).
   useEffect(() => {
-    if (!focusMoved.current || !focus) return;
-    focusMoved.current = false;
+    if (!focusRequest || !focus) return;
     const el = document.getElementById(domId(focus));
     const target = el?.tagName === "TR" ? el : (el?.querySelector<HTMLElement>("button") ?? el);
     target?.focus({ preventScroll: true });
     target?.scrollIntoView({ block: "nearest" });
-  });
+  }, [focusRequest]); // eslint-disable-line react-hooks/exhaustive-deps
 
   // Keys act only while the focus is in the table (or on nothing), never in a field.
   const keyState = useRef({ items, focus, onChoose, onToggle, toggleGroup, showMore, groups });
@@ -375,7 +377,7 @@ export function FlagsTable({ flags, mode, runHref, title = "Flags" }: { flags: F
         e.preventDefault();
         const next = s.items[at < 0 ? 0 : Math.min(s.items.length - 1, Math.max(0, at + (e.key === "j" ? 1 : -1)))];
         if (next) {
-          focusMoved.current = true;
+          requestFocus();
           setFocus(itemKey(next));
         }
         return;
@@ -409,7 +411,7 @@ export function FlagsTable({ flags, mode, runHref, title = "Flags" }: { flags: F
       setLimit((l) => ({ ...l, [`${query.group}:${g.key}`]: Math.max(ROWS_PER_STEP, Math.ceil((index + 1) / ROWS_PER_STEP) * ROWS_PER_STEP) }));
       setExpanded((e) => ({ ...e, [id]: true }));
       setFocus(`f:${id}`);
-      focusMoved.current = true;
+      requestFocus();
       pendingReveal.current = id;
     },
     [flags, query.group, query.severity, query.family, query.verdict], // eslint-disable-line react-hooks/exhaustive-deps
