@@ -42,7 +42,7 @@ export const REVEAL_FLAG_EVENT = "runproof:reveal-flag";
 const VERDICT_CHOICES = [
   { value: "agree", label: "Agree", key: "a" },
   { value: "dispute", label: "Dispute", key: "d" },
-  { value: "ask-authors", label: "Ask the authors", key: "" },
+  { value: "ask-authors", label: "Ask", key: "" },
 ] as const;
 
 type RowProps = {
@@ -102,7 +102,7 @@ const FlagRow = memo(function FlagRow(p: RowProps) {
         <td className="py-1 pr-2">
           <span className={`inline-block rounded border px-1.5 text-caption font-semibold ${tone[f.severity] ?? ""}`}>{severityLabel(f.severity)}</span>
         </td>
-        <td className="py-1 pr-2 text-caption">
+        <td className="py-1 pr-2 text-caption whitespace-nowrap">
           <a className="font-mono underline" href={`${href("/help/checks")}#${f.rule}`} title={f.ruleTitle}>
             {f.rule}
           </a>
@@ -110,18 +110,19 @@ const FlagRow = memo(function FlagRow(p: RowProps) {
         <td className="py-1 pr-2 text-caption whitespace-nowrap">{f.runLabel ? runLink ? <Link to={runLink}>{f.runLabel}</Link> : f.runLabel : <span className="text-basalt-soft">—</span>}</td>
         <td className="py-1 pr-2">
           <button type="button" className="text-left" aria-expanded={p.expanded} aria-controls={`flag-detail-${f.id}`} onClick={() => p.onToggle(f.id)}>
-            <span className="line-clamp-1" data-testid="flag-message">{f.message}</span>
+            <span className="line-clamp-2 text-caption" data-testid="flag-message">{f.message}</span>
           </button>
         </td>
         <td className="py-1 pr-2 text-caption">
           {mode.kind === "reviewer" ? (
-            <div className="flex flex-wrap gap-1" role="group" aria-label={`Your verdict on ${f.rule}${f.runLabel ? ` for run ${f.runLabel}` : ""}`}>
+            <div className="flex gap-1" role="group" aria-label={`Your verdict on ${f.rule}${f.runLabel ? ` for run ${f.runLabel}` : ""}`}>
               {VERDICT_CHOICES.map((c) => (
                 <button
                   key={c.value}
                   type="button"
                   disabled={locked}
                   aria-pressed={current?.verdict === c.value}
+                  title={c.value === "ask-authors" ? "Ask the authors" : undefined}
                   className={`whitespace-nowrap rounded px-1.5 py-0.5 ${current?.verdict === c.value ? "bg-lichen text-vellum" : "bg-vellum-deep"}`}
                   onClick={() => p.onChoose(f.id, c.value)}
                 >
@@ -157,7 +158,8 @@ const FlagRow = memo(function FlagRow(p: RowProps) {
       {p.expanded || p.reasonFor ? (
         <tr id={`flag-detail-${f.id}`} className="border-b border-rule bg-vellum" data-testid="flag-detail">
           <td colSpan={COLS} className="px-2 py-2">
-            <p className="font-semibold">{f.ruleTitle}</p>
+            <p>{f.message}</p>
+            <p className="mt-1 font-semibold">{f.ruleTitle}</p>
             <dl className="mt-1 grid grid-cols-[auto_1fr] gap-x-3 text-caption">
               {f.expected !== null ? (
                 <>

@@ -76,7 +76,7 @@ export function RunsTable({
                   <tr id={runAnchorId(r.label)} className="border-b border-rule">
                     {COLUMNS.map((c) =>
                       c.key === "label" ? (
-                        <th key={c.key} scope="row" className="py-1 pr-3">
+                        <th key={c.key} scope="row" className="whitespace-nowrap py-1 pr-3">
                           <Link to={runHref(r)}>{r.label}</Link>
                           {r.checking ? <span className="ml-1 font-normal text-basalt-soft">(checking…)</span> : null}
                         </th>

@@ -205,7 +205,11 @@ export default function EditorialRound({ loaderData: d, actionData }: Route.Comp
                 <RichText html={r.editorNote} />
               </div>
             ) : null}
-            {r.verdicts.length ? <p className="mt-2 text-caption">Verdicts on {r.verdicts.length} {r.verdicts.length === 1 ? "flag" : "flags"}: {(["agree", "dispute", "ask-authors"] as const).map((v) => `${r.verdicts.filter((x) => x.verdict === v).length} ${verdictLabel(v).toLowerCase()}`).join(", ")} (see the flags below).</p> : null}
+            {r.verdicts.length ? (
+              <p className="mt-2 text-caption">
+                Verdicts on {r.verdicts.length} {r.verdicts.length === 1 ? "flag" : "flags"}: agrees with {r.verdicts.filter((x) => x.verdict === "agree").length}, disputes {r.verdicts.filter((x) => x.verdict === "dispute").length}, asks the authors about {r.verdicts.filter((x) => x.verdict === "ask-authors").length} (each with its reason in the flags table below).
+              </p>
+            ) : null}
             <ul className="mt-2 flex flex-col gap-2">
               {r.remarks.map((m) => (
                 <li key={m.id} className="border-l-2 border-rule pl-2">

@@ -289,7 +289,7 @@ function ReviewWorkspace({ d, p }: { d: WorkspaceData; p: P }) {
           {d.authors.map((a) => `${a.name}${a.affiliation ? ` (${a.affiliation})` : ""}`).join("; ")}
         </p>
       ) : null}
-      <div className="mt-6 grid gap-6 xl:grid-cols-[minmax(0,1fr)_22rem]">
+      <div className="mt-6 grid gap-6 xl:grid-cols-[minmax(0,1fr)_18rem]">
         <div className="flex min-w-0 flex-col gap-4">
           <section className="card" aria-labelledby="claims-h">
             <h2 id="claims-h" className="text-lead">
