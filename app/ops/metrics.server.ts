@@ -1,6 +1,6 @@
 import { sql } from "drizzle-orm";
 import { collectDefaultMetrics, Gauge, Histogram, Registry } from "prom-client";
-import type { Database } from "~db/client";
+import { sqlStatementsSent, type Database } from "~db/client";
 
 export type ServerMetrics = {
   registry: Registry;
@@ -42,6 +42,14 @@ export function createServerMetrics(db: Database | null): ServerMetrics {
     registers: [registry],
     async collect() {
       this.set(await count(sql`select count(*)::int as n from pgboss.job where state in ('created', 'retry')`));
+    },
+  });
+  new Gauge({
+    name: "runproof_sql_statements_sent",
+    help: "Statements this process has sent to PostgreSQL since it started (a running total)",
+    registers: [registry],
+    collect() {
+      this.set(sqlStatementsSent());
     },
   });
   return {

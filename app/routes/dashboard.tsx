@@ -2,7 +2,7 @@ import { href, Link } from "react-router";
 import { requireUser } from "~/access/session.server";
 import { openVenues } from "~/workspace/submissions.server";
 import { DASHBOARD_LISTS, dashboardFor, parseListCursor, type DashboardList } from "~/dashboard/queries.server";
-import { myDecisions, myInvitations, myReviews } from "~/review/dashboard.server";
+import { myDecisions, myInvitations, myReviews, parseReviewCursor } from "~/review/dashboard.server";
 import type { Route } from "./+types/dashboard";
 import { decisionLabel, submissionStageLabel } from "~/review/labels";
 
@@ -15,7 +15,7 @@ export async function loader(args: Route.LoaderArgs) {
   const cursors = Object.fromEntries(DASHBOARD_LISTS.map((l) => [l, parseListCursor(url.searchParams.get(`after-${l}`))]));
   const [lists, reviews, venuesOpen, decisions, invited] = await Promise.all([
     dashboardFor(db, user.id, cursors),
-    myReviews(db, user.id),
+    myReviews(db, user.id, parseReviewCursor(url.searchParams.get("after-reviews"))),
     openVenues(db),
     myDecisions(db, user.id),
     myInvitations(db, user),
@@ -115,17 +115,24 @@ export default function Dashboard({ loaderData: d }: Route.ComponentProps) {
             </ul>
           </section>
         ) : null}
-        {d.reviews.length > 0 ? (
+        {d.reviews.total > 0 ? (
           <section className="card" data-testid="my-reviews">
-            <h2 className="text-lead">Your reviews</h2>
+            <h2 className="text-lead">
+              Your reviews <span className="text-caption">({d.reviews.total})</span>
+            </h2>
             <ul className="mt-2 divide-y divide-rule">
-              {d.reviews.map((r) => (
+              {d.reviews.items.map((r) => (
                 <li key={r.id} className="py-1">
                   <a className="underline" href={r.href}>{r.title}, round {r.round}</a>
                   <span className="ml-2 text-caption text-basalt-soft">{r.state === "submitted" ? "submitted" : `due ${r.dueAt ?? "—"}`}</span>
                 </li>
               ))}
             </ul>
+            {d.reviews.next ? (
+              <p className="mt-2 text-caption">
+                <Link to={`?after-reviews=${encodeURIComponent(d.reviews.next)}`}>Older reviews</Link>
+              </p>
+            ) : null}
           </section>
         ) : null}
         {d.decisions.length > 0 ? (

@@ -91,6 +91,20 @@ export async function roundRunRows(db: Database, roundId: string, q: RunRowQuery
   return rows.map(({ checkedKey, updatedAt, ...r }) => ({ ...r, updatedAt: updatedAt.toISOString(), checking: checkedKey === null }));
 }
 
+/**
+ * Every run's place in parameter space (label, E, rotating Ra) as the check job stored them: the
+ * little the parameter-space chart draws, without the flag counts or the rest of the row.
+ */
+export async function roundRunPoints(db: Database, roundId: string) {
+  return db
+    .select({ runId: runs.id, label: runs.label, E: runChecks.e, RaRotating: runChecks.raRotating })
+    .from(roundRuns)
+    .innerJoin(runs, eq(runs.id, roundRuns.runId))
+    .leftJoin(runChecks, eq(runChecks.runVersionId, roundRuns.runVersionId))
+    .where(eq(roundRuns.roundId, roundId))
+    .orderBy(sql`${runs.label} collate "C"`);
+}
+
 /** How many runs a round has (for paging). */
 export async function roundRunCount(db: Database, roundId: string) {
   const [row] = await db.select({ n: sql<number>`count(*)::int` }).from(roundRuns).where(eq(roundRuns.roundId, roundId));

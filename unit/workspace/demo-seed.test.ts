@@ -89,7 +89,7 @@ describe("the seeded demo", () => {
       const d = await dashboardFor(db, id(key));
       expect([...d.authored.items, ...d.coAuthored.items].some((s) => s.stage === "draft"), `${key} has a draft to work on`).toBe(true);
     }
-    for (const key of ["reviewer1", "reviewer2"]) expect((await myReviews(db, id(key))).some((r) => r.state === "in-progress"), `${key} has a report to write`).toBe(true);
+    for (const key of ["reviewer1", "reviewer2"]) expect((await myReviews(db, id(key))).items.some((r) => r.state === "in-progress"), `${key} has a report to write`).toBe(true);
     const queue = await deskQueue(db, again.venueId);
     expect(queue.some((q) => q.state === "sent"), "the editor has a round to find reviewers for").toBe(true);
     expect((await deskQueue(db, again.blindVenueId)).some((q) => q.state === "under-review"), "the second editor has a round under review").toBe(true);

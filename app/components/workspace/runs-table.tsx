@@ -29,6 +29,7 @@ export function formatNumber(v: unknown): string {
 /** One row per run with key controls, derived numbers and flag counts; sorted by any column. */
 export function RunsTable({
   rows,
+  total,
   runHref,
   csvHref,
   source,
@@ -36,6 +37,7 @@ export function RunsTable({
   rowDetail,
 }: {
   rows: RunRow[];
+  total?: number;
   runHref: (row: RunRow) => string;
   csvHref?: string;
   source?: string;
@@ -44,8 +46,9 @@ export function RunsTable({
   /** A full-width row under a run (e.g. a remark composer opened beside it), or null. */
   rowDetail?: (row: RunRow) => ReactNode | null;
 }) {
-  // With `source`, sorting and paging go through a fetcher against the round's API route.
-  const { rows: sorted, sort, setSort, page, pages, setPage, pending } = useRunsPage(rows, source);
+  // With `source`, sorting and paging go through a fetcher against the round's API route; `rows`
+  // is then the first page (by label) of `total` runs.
+  const { rows: sorted, sort, setSort, page, pages, setPage, pending } = useRunsPage(rows, source, total);
   return (
     <div>
       <div className="overflow-x-auto">

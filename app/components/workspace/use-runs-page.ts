@@ -35,10 +35,11 @@ function localPage(rows: RunRow[], sort: { key: SortKey; dir: 1 | -1 }, page: nu
 /**
  * The rows the runs table shows. With `source` (the round's `/api/v1/…/runs` route, read with
  * the session cookie), sorting and paging load through a fetcher, so the page neither reloads
- * nor navigates; the first page comes from the loader's rows. When the loader revalidates (an
+ * nor navigates; the first page comes from the loader's rows (all of them, or with `firstPageOf`
+ * only the first page of that many). When the loader revalidates (an
  * upload or a pushed run), the current page is fetched again so it does not go stale.
  */
-export function useRunsPage(rows: RunRow[], source?: string) {
+export function useRunsPage(rows: RunRow[], source?: string, firstPageOf?: number) {
   const fetcher = useFetcher<ApiPage>();
   const [sort, setSortState] = useState<{ key: SortKey; dir: 1 | -1 }>({ key: "label", dir: 1 });
   const [page, setPageState] = useState(1);
@@ -60,9 +61,11 @@ export function useRunsPage(rows: RunRow[], source?: string) {
   }, [rows]);
 
   const remote = source && touched.current && fetcher.data && Array.isArray(fetcher.data.items) ? fetcher.data : null;
-  const total = remote ? remote.total : rows.length;
+  // Given `firstPageOf`, the loader sent only the first page in SQL's order: shown as it is.
+  const paged = source !== undefined && firstPageOf !== undefined;
+  const total = remote ? remote.total : paged ? firstPageOf : rows.length;
   return {
-    rows: remote ? remote.items.map(toRow) : localPage(rows, sort, page),
+    rows: remote ? remote.items.map(toRow) : paged ? rows : localPage(rows, sort, page),
     sort,
     setSort: (key: SortKey) => load({ key, dir: sort.key === key ? (-sort.dir as 1 | -1) : 1 }, 1),
     page,

@@ -5,7 +5,7 @@ import { ParameterSpaceChart } from "~/components/workspace/lazy-plots";
 import { serviceError } from "~/workspace/action-errors.server";
 import { roundClaims } from "~/workspace/claims.server";
 import { roundFlags } from "~/workspace/flags-query.server";
-import { roundRunRows } from "~/workspace/round-data.server";
+import { roundRunPoints } from "~/workspace/round-data.server";
 import { fieldId, fieldForQuantity } from "~/workspace/run-form-fields";
 import { sendRound } from "~/workspace/send.server";
 import type { Route } from "./+types/overview";
@@ -17,13 +17,13 @@ export async function loader(args: Route.LoaderArgs) {
   // Someone invited to review, who has not answered yet, starts at the invitation.
   if (!access.can("read-flags")) throw redirect(href("/venues/:venueId/submissions/:submissionId/rounds/:round/review", args.params));
   const round = access.round;
-  const [flags, runs, claims] = await Promise.all([roundFlags(db, round.id), roundRunRows(db, round.id), roundClaims(db, round.id)]);
+  const [flags, runs, claims] = await Promise.all([roundFlags(db, round.id), roundRunPoints(db, round.id), roundClaims(db, round.id)]);
   const url = new URL(args.request.url);
   const initial = Object.fromEntries(["severity", "rule", "run", "claim"].map((k) => [k, url.searchParams.get(k) ?? ""]));
   return {
     checkError: round!.checkError,
     flags,
-    runs: runs.map((r) => ({ runId: r.runId, label: r.label, E: r.E, RaRotating: r.RaRotating })),
+    runs,
     claims: claims.map((c) => ({ id: c.id, title: [c.figure, (c.record as { title?: string }).title].filter(Boolean).join(": ") || "claim" })),
     draft: round.state === "draft",
     version: round.version,

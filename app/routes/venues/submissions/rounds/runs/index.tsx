@@ -5,7 +5,8 @@ import { IssueList, RunForm } from "~/components/workspace/run-form";
 import { RunsTable } from "~/components/workspace/runs-table";
 import { serviceError } from "~/workspace/action-errors.server";
 import { keyMapText, parseKeyMap, SUGGESTED_MAP } from "~/workspace/namelist-map";
-import { roundRunRows } from "~/workspace/round-data.server";
+import { RUNS_PAGE_SIZE } from "~/components/workspace/use-runs-page";
+import { roundRunCount, roundRunPoints, roundRunRows } from "~/workspace/round-data.server";
 import { formToRecord } from "~/workspace/run-form-fields";
 import { addRun, importNamelist, parseJsonText, saveKeyMap, savedKeyMap } from "~/workspace/run-edits.server";
 import type { Route } from "./+types/index";
@@ -15,8 +16,14 @@ export const meta: Route.MetaFunction = () => [{ title: "Runs · Runproof" }];
 export async function loader(args: Route.LoaderArgs) {
   const { db, access } = await requireRound(args, "read-runs");
   const canEdit = access.can("write-runs");
-  const [rows, map] = await Promise.all([roundRunRows(db, access.round.id), canEdit ? savedKeyMap(db, access.submission.id) : null]);
-  return { rows, canEdit, keyMap: keyMapText(map ?? SUGGESTED_MAP), keyMapSaved: Boolean(map) };
+  // The table's first page, sorted and paged in SQL; later pages and other orders come from the API route.
+  const [rows, total, points, map] = await Promise.all([
+    roundRunRows(db, access.round.id, { limit: RUNS_PAGE_SIZE }),
+    roundRunCount(db, access.round.id),
+    roundRunPoints(db, access.round.id),
+    canEdit ? savedKeyMap(db, access.submission.id) : null,
+  ]);
+  return { rows, total, points, canEdit, keyMap: keyMapText(map ?? SUGGESTED_MAP), keyMapSaved: Boolean(map) };
 }
 
 async function fileText(v: FormDataEntryValue | null) {
@@ -72,12 +79,13 @@ export default function Runs({ loaderData: d, actionData, params }: Route.Compon
         </h3>
         {d.rows.length ? <RunsTable
             rows={d.rows}
+            total={d.total}
             runHref={(r) => href("/venues/:venueId/submissions/:submissionId/rounds/:round/runs/:runId", { ...p, runId: r.runId })}
             csvHref={href("/venues/:venueId/submissions/:submissionId/rounds/:round/runs.csv", p)}
             source={href("/api/v1/submissions/:submissionId/rounds/:round/runs", p)}
           /> : <p className="text-caption">No runs yet.</p>}
       </section>
-      <ParameterSpaceChart points={d.rows} />
+      <ParameterSpaceChart points={d.points} />
       {d.canEdit ? (
         <section aria-labelledby="add-h" className="flex flex-col gap-4">
           <h3 id="add-h" className="text-lead">
