@@ -40,7 +40,7 @@ test("the reviewer's workspace while the report is open: flags table, reason fie
   const open = fixture<Fx>("make-review-open.ts", `Accessible open review ${Date.now()}`);
   await login(page, "reviewer1");
   await page.goto(`/venues/${open.venueId}/submissions/${open.submissionId}/rounds/1/review`);
-  await expect(page.getByTestId("flag-row").first()).toBeVisible();
+  await expect(page.locator('[data-testid="flags-table"][data-ready="true"]')).toBeVisible();
   expect(await seriousViolations(page)).toEqual([]);
   await page.getByTestId("flag-row").first().getByRole("button", { name: "Dispute" }).click();
   await expect(page.getByTestId("verdict-reason-form")).toBeVisible();

@@ -46,6 +46,7 @@ async function review(browser: Browser, key: "reviewer1" | "reviewer2", marker: 
   await page.getByRole("button", { name: "Accept and open the review" }).click();
   await expect(page.getByRole("heading", { level: 1, name: title })).toBeVisible();
   await expect(page.getByTestId("advisory-note").first()).toBeVisible();
+  await expect(page.locator('[data-testid="flags-table"][data-ready="true"]')).toBeVisible();
 
   // A dispute on the first flag, with its reason, shown at once (optimistic) and still there after reload.
   const flag = page.getByTestId("flag-row").first();

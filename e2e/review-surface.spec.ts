@@ -28,11 +28,14 @@ async function as(browser: Browser, key: Parameters<typeof login>[1]) {
 }
 
 const roundPath = (tail: string, round = 1) => `/venues/${fx.venueId}/submissions/${fx.submissionId}/rounds/${round}/${tail}`;
+/** The table answers keys once hydrated. */
+const ready = (page: Page) => expect(page.locator('[data-testid="flags-table"][data-ready="true"]')).toBeVisible();
 const row = (page: Page, rule: string) => page.locator(`[data-testid="flag-row"][data-rule="${rule}"]`).first();
 
 test("keys move through the flags and give verdicts, never while typing", async ({ browser }) => {
   const page = await as(browser, "reviewer1");
   await page.goto(roundPath("review"));
+  await ready(page);
   const table = page.getByTestId("flags-table");
   await expect(table.getByTestId("flags-keys")).toContainText("a agree");
   await expect(table.getByTestId("flag-row")).toHaveCount(fx.flagCount);
@@ -76,6 +79,7 @@ test("keys move through the flags and give verdicts, never while typing", async 
 
   // Saved verdicts survive a reload; grouping and filters live in the address.
   await page.reload();
+  await ready(page);
   await expect(table.getByTestId("flag-row").nth(0).getByRole("button", { name: "Agree" })).toHaveAttribute("aria-pressed", "true");
   await page.getByRole("radio", { name: "Run" }).click();
   await expect(page).toHaveURL(/group=run/);
@@ -84,6 +88,7 @@ test("keys move through the flags and give verdicts, never while typing", async 
   await expect(table.getByTestId("flag-row")).toHaveCount(1);
   await expect(table.getByTestId("flag-group").first()).toContainText("Run strat-B");
   await page.reload();
+  await ready(page);
   await expect(page.getByRole("radio", { name: "Run" })).toBeChecked();
   await expect(table.getByTestId("flag-row")).toHaveCount(1);
   // The rule links to its entry in the checks reference.
@@ -97,11 +102,13 @@ test("keys move through the flags and give verdicts, never while typing", async 
 test("reviewer disputes a flag with a reason and remarks beside it with a formula; the editor sees it; the authors answer it in round 2", async ({ browser }) => {
   const reviewer = await as(browser, "reviewer1");
   await reviewer.goto(roundPath("review"));
+  await ready(reviewer);
   // The run's full record, one click from the workspace.
   await reviewer.getByTestId("runs-table").getByRole("link", { name: "strat-B" }).click();
   await expect(reviewer.getByTestId("run-full-record")).toBeVisible();
   await expect(reviewer.getByTestId("run-derived")).toBeVisible();
   await reviewer.goBack();
+  await ready(reviewer);
 
   const flag = row(reviewer, "A.pm-from-diffusivities");
   await flag.getByRole("button", { name: "Dispute" }).click();
@@ -130,6 +137,7 @@ test("reviewer disputes a flag with a reason and remarks beside it with a formul
   // The editor's round page: the same table, with each reviewer's verdict and reason.
   const editor = await as(browser, "editor");
   await editor.goto(roundPath("desk"));
+  await ready(editor);
   const edRow = row(editor, "A.pm-from-diffusivities");
   await expect(edRow.getByTestId("flag-verdicts")).toContainText(`Reviewer 1 (${demo("reviewer1").name}): disputes`);
   await edRow.getByRole("button", { name: /Pm/ }).first().click();

@@ -299,6 +299,9 @@ export function FlagsTable({ flags, mode, runHref, title = "Flags" }: { flags: F
   const [remarkFor, setRemarkFor] = useState<string | null>(null);
   const [focus, setFocus] = useState<string | null>(null);
   const containerRef = useRef<HTMLDivElement>(null);
+  // The keys work once the page has hydrated; the attribute lets tests (and styles) know.
+  const [ready, setReady] = useState(false);
+  useEffect(() => setReady(true), []);
   // Bumped with every focus change made by keys, so the effect below moves the browser's focus
   // in the same commit as the new `focus` (a ref flag could be consumed by an unrelated render).
   const [focusRequest, setFocusRequest] = useState(0);
@@ -466,7 +469,7 @@ export function FlagsTable({ flags, mode, runHref, title = "Flags" }: { flags: F
         ];
 
   return (
-    <section aria-labelledby="flags-table-h" data-testid="flags-table" ref={containerRef as never}>
+    <section aria-labelledby="flags-table-h" data-testid="flags-table" data-ready={ready ? "true" : undefined} ref={containerRef as never}>
       <h2 id="flags-table-h" className="text-lead">
         {title}{" "}
         <span className="text-caption font-normal text-basalt-soft" data-testid="flags-shown">
