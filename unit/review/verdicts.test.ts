@@ -1,7 +1,7 @@
 import { and, eq } from "drizzle-orm";
 import { afterAll, describe, expect, it } from "vitest";
 import { demoPeople } from "~db/demo-data";
-import { flagVerdicts, flags, reviews, rounds, user } from "~db/schema";
+import { flagVerdicts, flags, outbox, reviews, rounds, user } from "~db/schema";
 import { releaseDecision } from "~/review/decisions.server";
 import { submitReview, setVerdict, saveReportMeta } from "~/review/reviews.server";
 import { releasedVerdicts, saveVerdictAnswer, submittedVerdictsByFlag } from "~/review/verdicts.server";
@@ -50,6 +50,11 @@ describe("verdicts with reasons, released to the authors as Reviewer N, answered
     const text = JSON.stringify(released);
     expect(text).toContain("Reviewer 1");
     for (const secret of [reviewerId, review!.id, demoPeople.find((p) => p.key === "reviewer1")!.name, demoPeople.find((p) => p.key === "reviewer1")!.email]) expect(text).not.toContain(secret);
+    // The decision mail carries the dispute with its reason, signed "Reviewer 1" only.
+    const [mail] = await db.select().from(outbox).where(eq(outbox.dedupeKey, `decision:${fx.roundId}:${demoPeople.find((p) => p.key === "author")!.email}`));
+    expect(mail!.textBody).toContain("Reviewer 1 disputes flag");
+    expect(mail!.textBody).toContain("The unit of η is off by 10^3.");
+    expect(mail!.textBody).not.toContain(demoPeople.find((p) => p.key === "reviewer1")!.name);
     expect(released.find((f) => f.flagId === a!.id)!.verdicts).toEqual([{ reviewer: "Reviewer 1", number: 1, verdict: "dispute", reason: "The unit of η is off by 10^3.", answer: null }]);
 
     // The authors answer the dispute while round 2 is their draft; an agreement takes no answer.
