@@ -67,10 +67,17 @@ const RULES: Record<string, Rule> = {
   "routes/venues/submissions/rounds/overview.tsx": {
     kind: "round",
     get: { ...CONTENT, invited: "--r-" },
-    post: { "": { author: "afff", coauthor: "-fff" } },
+    // Deleting the whole draft: the corresponding author only, never once sent.
+    post: { "": { author: "afff", coauthor: "-fff" }, "delete-draft": { author: "afff", coauthor: "-fff" } },
+    destructive: ["delete-draft"],
   },
-  "routes/venues/submissions/rounds/runs/index.tsx": { kind: "round", get: CONTENT, post: { form: AUTHOR_WRITE, json: AUTHOR_WRITE, namelist: AUTHOR_WRITE } },
-  "routes/venues/submissions/rounds/runs/run.tsx": { kind: "round", get: CONTENT, post: { edit: AUTHOR_WRITE } },
+  "routes/venues/submissions/rounds/runs/index.tsx": {
+    kind: "round",
+    get: CONTENT,
+    post: { form: AUTHOR_WRITE, json: AUTHOR_WRITE, namelist: AUTHOR_WRITE, "bulk-json": AUTHOR_WRITE, "bulk-namelist": AUTHOR_WRITE },
+  },
+  // Duplicating adds a run under a label of its own; deleting removes the matrix's run.
+  "routes/venues/submissions/rounds/runs/run.tsx": { kind: "round", get: CONTENT, post: { edit: AUTHOR_WRITE, duplicate: AUTHOR_WRITE, delete: AUTHOR_WRITE }, destructive: ["delete"] },
   "routes/venues/submissions/rounds/runs/attachments.ts": {
     kind: "round",
     get: readers({ authors: "mmmm", reviewer: "--mm", editor: "-mmm" }),
@@ -151,6 +158,9 @@ const RULES: Record<string, Rule> = {
   "routes/home.tsx": { kind: "global", get: PUBLIC },
   "routes/help/checks.tsx": { kind: "global", get: PUBLIC },
   "routes/help/api.tsx": { kind: "global", get: PUBLIC },
+  // Downloads the help pages offer: public files, like the pages.
+  "routes/help/checker-download.ts": { kind: "global", noData: true, get: PUBLIC },
+  "routes/help/push-run-download.ts": { kind: "global", noData: true, get: PUBLIC },
   "routes/auth/sign-in.tsx": { kind: "global", get: { ...Object.fromEntries(PEOPLE.map((p) => [p, "r"])), anonymous: "o" }, post: EVERYONE("a") },
   "routes/auth/sign-up.tsx": { kind: "global", get: PUBLIC, post: EVERYONE("a") },
   "routes/auth/check-email.tsx": { kind: "global", get: PUBLIC },

@@ -34,6 +34,7 @@ export const ACTIONS = [
   "write-claims",
   "answer-flags",
   "send-round",
+  "delete-draft", // delete the whole submission while its only round is an unsent draft
   "answer-remarks", // the authors' answers to released remarks, carried into the next round
   "respond-invitation",
   "review",
@@ -62,7 +63,7 @@ type Grants = Partial<Record<PolicyState, readonly Action[]>>;
 /** What each relation may do in each state; anything not listed is refused. */
 const GRANTS: Record<Relation, Grants> = {
   author: {
-    draft: [...AUTHOR_READS, ...AUTHOR_WRITES, "send-round"],
+    draft: [...AUTHOR_READS, ...AUTHOR_WRITES, "send-round", "delete-draft"],
     sent: AUTHOR_READS,
     "under-review": AUTHOR_READS,
     decided: [...AUTHOR_READS, "read-decision", "answer-remarks"],

@@ -7,7 +7,7 @@
  * numeric, finite, and as long as the first.
  */
 import { CsvFormatError, type CsvKind } from "./csv.ts";
-import type { Columns } from "./schema.ts";
+import { LIMITS, type Columns } from "./schema.ts";
 
 export interface DatasetMapEntry {
   column: string;
@@ -35,11 +35,14 @@ const FIRST: Record<CsvKind, string> = { series: "t", spectrum: "l" };
 export function columnsFromArrays(arrays: Array<[DatasetMapEntry, ArrayLike<number | bigint> | null, string]>, kind: CsvKind): Columns {
   const first = arrays[0]?.[0].column;
   if (first !== FIRST[kind]) throw new CsvFormatError(`the first column of a ${kind} must be "${FIRST[kind]}" (the map starts with "${first ?? ""}")`);
+  if (arrays.length > LIMITS.seriesColumns) throw new CsvFormatError(`the map names ${arrays.length} columns; at most ${LIMITS.seriesColumns} are allowed — read fewer datasets`);
   const out: Columns = {};
   let n = -1;
   for (const [entry, data, why] of arrays) {
     if (!data) throw new CsvFormatError(`dataset "${entry.dataset}" (for column ${entry.column}) ${why}`);
     if (out[entry.column]) throw new CsvFormatError(`column ${entry.column} appears twice in the map`);
+    // Checked before any copy, so the file's size never sets an allocation past the row limit.
+    if (data.length > LIMITS.seriesRows) throw new CsvFormatError(`dataset "${entry.dataset}" has ${data.length.toLocaleString("en")} values; at most ${LIMITS.seriesRows.toLocaleString("en")} rows are allowed — thin it (e.g. every n-th value)`);
     // typed arrays of doubles or floats copy in one go; 64-bit integers go through Number
     const col = data instanceof Float64Array || data instanceof Float32Array ? Array.from(data) : Array.from(data as ArrayLike<number | bigint>, Number);
     for (let i = 0; i < col.length; i++) {

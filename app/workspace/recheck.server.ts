@@ -3,7 +3,7 @@ import { and, eq, inArray, isNull, notInArray, or, sql } from "drizzle-orm";
 import type { Database } from "~db/client";
 import { attachments, claims, flags, roundRuns, rounds, runChecks, storedFiles, submissions, venues, type AttachmentAnalysis } from "~db/schema";
 import { CheckInputError, checkPreparedRound, ClaimCheckError, policySchema, resolvePolicy, type SeriesStats, type StatedComparison } from "~/checker";
-import { parseCsvStreamTyped } from "~/checker/csv-stream";
+import { readSeriesFile, SERIES_FORMATS, type SeriesFormat } from "~/checker/series-formats";
 import type { ClaimRecord, Columns, RunRecord } from "~/checker/schema";
 import type { Derived, Flag } from "~/checker/types";
 import { queueRecheck } from "~/jobs/check-queue.server";
@@ -42,12 +42,14 @@ export async function roundCheckState(db: Db, roundId: string) {
   return { checking: !!row && row.checkedSeq < row.changeSeq, checkedAt: row?.checkedAt ?? null };
 }
 
-type FileRow = { id: string; runVersionId: string; kind: "series" | "spectrum"; key: string; analysis: AttachmentAnalysis | null };
+type FileRow = { id: string; runVersionId: string; kind: "series" | "spectrum"; key: string; analysis: AttachmentAnalysis | null; format: string; sourceMap: string | null; size: number };
 
 /** Analyses a stored file again from object storage (first check after an upgrade, or a changed MSER batch). */
 async function analyseStored(db: Db, f: FileRow, batch: number): Promise<AttachmentAnalysis> {
   const body = await storage.getStream(f.key);
-  const cols = await parseCsvStreamTyped(body as unknown as AsyncIterable<Uint8Array>, f.kind);
+  const format = (SERIES_FORMATS as readonly string[]).includes(f.format) ? (f.format as SeriesFormat) : "csv";
+  // The stored file passed the upload limit on arrival; it is read up to the size recorded then.
+  const cols = await readSeriesFile(body as unknown as AsyncIterable<Uint8Array>, { kind: f.kind, format, map: f.sourceMap, limitBytes: f.size });
   const { analysis, plot } = analyseColumns(f.kind, cols, batch);
   await db.update(attachments).set({ analysis, plot }).where(eq(attachments.id, f.id));
   return analysis;
@@ -120,7 +122,7 @@ export async function recheckRound(db: Database, roundId: string) {
   const versionIds = runRows.map((r) => r.versionId);
   const files: FileRow[] = versionIds.length
     ? await db
-        .select({ id: attachments.id, runVersionId: attachments.runVersionId, kind: attachments.kind, key: storedFiles.key, analysis: attachments.analysis })
+        .select({ id: attachments.id, runVersionId: attachments.runVersionId, kind: attachments.kind, key: storedFiles.key, analysis: attachments.analysis, format: attachments.format, sourceMap: attachments.sourceMap, size: storedFiles.size })
         .from(attachments)
         .innerJoin(storedFiles, eq(storedFiles.id, attachments.fileId))
         .where(and(inArray(attachments.runVersionId, versionIds), eq(attachments.active, true)))

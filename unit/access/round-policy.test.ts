@@ -27,6 +27,7 @@ const TABLE: Record<Action, Record<Relation, string>> = {
   "write-claims": { author: "x....", "co-author": "x....", editor: ".....", reviewer: ".....", invited: ".....", admin: ".....", none: "....." },
   "answer-flags": { author: "x....", "co-author": "x....", editor: ".....", reviewer: ".....", invited: ".....", admin: ".....", none: "....." },
   "send-round": { author: "x....", "co-author": ".....", editor: ".....", reviewer: ".....", invited: ".....", admin: ".....", none: "....." },
+  "delete-draft": { author: "x....", "co-author": ".....", editor: ".....", reviewer: ".....", invited: ".....", admin: ".....", none: "....." },
   "answer-remarks": { author: "...x.", "co-author": "...x.", editor: ".....", reviewer: ".....", invited: ".....", admin: ".....", none: "....." },
   "respond-invitation": { author: ".....", "co-author": ".....", editor: ".....", reviewer: ".....", invited: ".xx..", admin: ".....", none: "....." },
   "review": { author: ".....", "co-author": ".....", editor: ".....", reviewer: ".xx..", invited: ".....", admin: ".....", none: "....." },

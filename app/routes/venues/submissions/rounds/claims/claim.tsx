@@ -78,7 +78,15 @@ export default function Claim({ loaderData: d, params }: Route.ComponentProps) {
           readOnly={!d.canEdit}
         />
         {d.canEdit ? (
-          <Form method="post" className="mt-4">
+          <Form
+            method="post"
+            className="mt-4"
+            onSubmit={(e) => {
+              const title = [d.claim.figure, (d.claim.record as unknown as { title?: string } | null)?.title].filter(Boolean).join(": ") || "this claim";
+              const stated = ((d.claim.record as unknown as { stated?: unknown[] } | null)?.stated ?? []).length;
+              if (!window.confirm(`Delete the claim "${title}" from round ${params.round}? Its ${stated} stated value${stated === 1 ? "" : "s"} and its flags (with any answers to them) are removed; the runs stay.`)) e.preventDefault();
+            }}
+          >
             <input type="hidden" name="intent" value="delete" />
             <button type="submit" className="btn-quiet btn">
               Delete the claim

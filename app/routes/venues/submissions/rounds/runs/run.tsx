@@ -1,4 +1,4 @@
-import { data, Form, href } from "react-router";
+import { data, Form, href, redirect } from "react-router";
 import { FlagsPanel } from "~/components/workspace/flags-panel";
 import { SeriesChart, SpectrumChart } from "~/components/workspace/lazy-plots";
 import { RunForm } from "~/components/workspace/run-form";
@@ -14,6 +14,9 @@ import { sig4 } from "~/lib/sig-figs";
 import { fieldId, fieldForQuantity, formToRecord, recordToValues } from "~/workspace/run-form-fields";
 import { editRun } from "~/workspace/run-edits.server";
 import { roundRunList, runVersionHistory } from "~/workspace/runs.server";
+import { claimsNamingRun, deleteRun } from "~/workspace/removals.server";
+import { duplicateRun } from "~/workspace/run-template.server";
+import { savedSeriesMaps } from "~/workspace/series-maps.server";
 import { diffRunRecords } from "~/workspace/run-diff";
 import type { SeriesPlot } from "~/workspace/view-types";
 import { SeriesStatsTable } from "~/components/workspace/series-stats";
@@ -86,6 +89,9 @@ export async function loader(args: Route.LoaderArgs) {
     groups: recordLines(run.record),
     flags: flags.filter((f) => f.runLabel === run.label),
     canEdit: access.can("write-runs"),
+    seriesMaps: access.can("write-runs") ? await savedSeriesMaps(db, access.submission.id) : {},
+    copiedFrom: new URL(args.request.url).searchParams.get("copied")?.slice(0, 200) ?? null,
+    namedBy: access.can("write-runs") ? await claimsNamingRun(db, round.id, run.label) : [],
     limitBytes: env.UPLOAD_LIMIT_MB * 1024 * 1024,
   };
 }
@@ -95,7 +101,17 @@ export async function action(args: Route.ActionArgs) {
   const { round } = access;
   const run = await runOfRound(db, round.id, args.params.runId);
   const form = await args.request.formData();
+  const intent = String(form.get("intent") ?? "edit");
+  const roundPage = { venueId: access.submission.venueId, submissionId: access.submission.id, round: String(round.number) };
   try {
+    if (intent === "duplicate") {
+      const copy = await duplicateRun(db, { submissionId: access.submission.id, roundId: round.id, runId: run.runId, userId: user.id });
+      throw redirect(`${href("/venues/:venueId/submissions/:submissionId/rounds/:round/runs/:runId", { ...roundPage, runId: copy.run.id })}?copied=${encodeURIComponent(run.label)}#record-h`);
+    }
+    if (intent === "delete") {
+      const gone = await deleteRun(db, { roundId: round.id, runId: run.runId });
+      throw redirect(`${href("/venues/:venueId/submissions/:submissionId/rounds/:round/runs", roundPage)}?deleted=${encodeURIComponent(gone.label)}`);
+    }
     const out = await editRun(db, {
       runId: run.runId,
       roundId: round.id,
@@ -106,13 +122,18 @@ export async function action(args: Route.ActionArgs) {
     });
     return { ok: true as const, version: out.version.version };
   } catch (e) {
-    return serviceError(e);
+    if (e instanceof Response) throw e;
+    return serviceError(e, { intent });
   }
 }
+
+const mapsOf = (maps: Record<string, string>, kind: string) => ({ columns: maps[`${kind}.columns`], hdf5: maps[`${kind}.hdf5`], netcdf: maps[`${kind}.netcdf`] });
 
 export default function Run({ loaderData: d, actionData, params }: Route.ComponentProps) {
   const p = { venueId: params.venueId, submissionId: params.submissionId, round: params.round };
   const error = actionData && "error" in actionData ? actionData.error : undefined;
+  const copiedFrom = d.copiedFrom;
+  const runAction = actionData && "intent" in actionData && actionData.intent !== "edit";
   return (
     <div className="flex flex-col gap-6">
       <div>
@@ -122,6 +143,43 @@ export default function Run({ loaderData: d, actionData, params }: Route.Compone
         <p className="text-caption text-basalt-soft">
           Version {d.run.version} ({ORIGIN_WORDS[d.run.origin] ?? d.run.origin}) is the one this round uses; earlier versions and what changed are listed below.
         </p>
+        {copiedFrom ? (
+          <p role="status" className="mt-2 text-lichen" data-testid="run-copied">
+            A copy of run {copiedFrom}: change what differs below and save.
+          </p>
+        ) : null}
+        {d.canEdit ? (
+          <div className="mt-2 flex flex-wrap gap-2" data-testid="run-actions">
+            <Form method="post">
+              <input type="hidden" name="intent" value="duplicate" />
+              <button type="submit" className="btn-quiet btn">
+                Duplicate as template
+              </button>
+            </Form>
+            <Form
+              method="post"
+              onSubmit={(e) => {
+                const message = d.namedBy.length
+                  ? `Run ${d.run.label} cannot be deleted while claims name it: ${d.namedBy.map((c) => c.title).join("; ")}. Take it out of those claims first.`
+                  : `Delete run ${d.run.label} from round ${params.round}? Its record (${d.history.length} version${d.history.length === 1 ? "" : "s"}), its attached files (${d.plots.files.length}) and its flags in this round are removed. Earlier rounds that used it keep it.`;
+                if (d.namedBy.length) {
+                  window.alert(message);
+                  e.preventDefault();
+                } else if (!window.confirm(message)) e.preventDefault();
+              }}
+            >
+              <input type="hidden" name="intent" value="delete" />
+              <button type="submit" className="btn-quiet btn">
+                Delete the run
+              </button>
+            </Form>
+          </div>
+        ) : null}
+        {error && runAction ? (
+          <p role="alert" className="mt-2 text-ember" data-testid="run-action-error">
+            {error.message}
+          </p>
+        ) : null}
         {actionData && "ok" in actionData ? (
           <p role="status" className="mt-2 text-lichen">
             Saved as version {actionData.version}; the checker re-ran.
@@ -206,8 +264,8 @@ export default function Run({ loaderData: d, actionData, params }: Route.Compone
         ) : null}
         {d.canEdit ? (
           <div className="grid gap-4 md:grid-cols-2">
-            <CsvUpload action={href("/venues/:venueId/submissions/:submissionId/rounds/:round/runs/:runId/attachments", { ...p, runId: d.run.runId })} kind="series" label="Attach a time series" limitBytes={d.limitBytes} />
-            <CsvUpload action={href("/venues/:venueId/submissions/:submissionId/rounds/:round/runs/:runId/attachments", { ...p, runId: d.run.runId })} kind="spectrum" label="Attach a spectrum" limitBytes={d.limitBytes} />
+            <CsvUpload action={href("/venues/:venueId/submissions/:submissionId/rounds/:round/runs/:runId/attachments", { ...p, runId: d.run.runId })} kind="series" label="Attach a time series" limitBytes={d.limitBytes} maps={mapsOf(d.seriesMaps, "series")} />
+            <CsvUpload action={href("/venues/:venueId/submissions/:submissionId/rounds/:round/runs/:runId/attachments", { ...p, runId: d.run.runId })} kind="spectrum" label="Attach a spectrum" limitBytes={d.limitBytes} maps={mapsOf(d.seriesMaps, "spectrum")} />
           </div>
         ) : null}
       </section>
@@ -222,8 +280,8 @@ export default function Run({ loaderData: d, actionData, params }: Route.Compone
             submitLabel="Save as a new version"
             values={d.run.values}
             lockLabel
-            message={error?.message}
-            issues={error?.issues ?? []}
+            message={runAction ? undefined : error?.message}
+            issues={runAction ? [] : (error?.issues ?? [])}
             extra={<input type="hidden" name="expectedVersion" value={d.run.version} />}
           />
         ) : (
