@@ -8,7 +8,7 @@ import { checkMap, FORMAT_CONTENT_TYPES, FORMAT_NAMES, readSeriesFile, type Seri
 import { storage } from "~/storage/storage.server";
 import { markRoundChanged, requestRecheck } from "./recheck.server";
 import { draftRoundById } from "./rounds.server";
-import { InvalidInput, PayloadTooLarge } from "./types";
+import { InvalidInput, PayloadTooLarge, StorageUnavailable } from "./types";
 
 export type AttachOptions = {
   roundId: string;
@@ -67,6 +67,9 @@ export async function attachCsv(db: Database, opts: AttachOptions): Promise<{ at
   let size = 0;
   let tooLarge = false;
   let uploaded = false;
+  // Set when object storage fails (down, refusing): reading stops and the caller is told to retry.
+  let storageError: unknown = null;
+  toStorage.on("error", () => {});
 
   // One pass over the body: count, hash, forward to storage (respecting its back-pressure), parse.
   async function* chunks() {
@@ -82,6 +85,7 @@ export async function attachCsv(db: Database, opts: AttachOptions): Promise<{ at
             `The file "${opts.filename}" is larger than the upload limit of ${mb(opts.limitBytes)}; nothing was stored. Thin the series (e.g. every n-th row) or split it, then upload again.`,
           );
         }
+        if (storageError) throw storageError;
         hash.update(value);
         // "close" too: after a failure the stream is destroyed and will never drain.
         if (!toStorage.write(value)) {
@@ -99,7 +103,10 @@ export async function attachCsv(db: Database, opts: AttachOptions): Promise<{ at
   }
 
   const upload = storage.put(key, toStorage, FORMAT_CONTENT_TYPES[format]).then(() => (uploaded = true));
-  upload.catch(() => {});
+  upload.catch((e) => {
+    storageError = e;
+    toStorage.destroy();
+  });
   let columns: TypedColumns;
   try {
     // The parse only validates (text line by line, chunk by chunk, so other requests keep being
@@ -115,6 +122,9 @@ export async function attachCsv(db: Database, opts: AttachOptions): Promise<{ at
     if (tooLarge) {
       throw e instanceof PayloadTooLarge ? e : new PayloadTooLarge(`The file "${opts.filename}" is larger than the upload limit of ${mb(opts.limitBytes)}; nothing was stored.`);
     }
+    if (storageError) {
+      throw new StorageUnavailable(`The file "${opts.filename}" could not be stored: file storage is not answering. Nothing was saved; upload it again in a minute.`);
+    }
     if (e instanceof CsvFormatError) {
       throw new InvalidInput(`The ${opts.kind} ${FORMAT_NAMES[format]} file "${opts.filename}" could not be read; nothing was stored. ${fixHint(format, opts.kind)}`, [
         { path: e.line !== undefined ? `line ${e.line}` : "file", message: e.message.replace(/^line \d+: /, "") },
@@ -128,6 +138,10 @@ export async function attachCsv(db: Database, opts: AttachOptions): Promise<{ at
   let attachmentId: string;
   try {
     attachmentId = await db.transaction(async (tx) => {
+      // Raising the round's change counter first takes the round's row lock, so two uploads to one
+      // run wait for each other here: the second then sees the first as current and retires it
+      // (done last, both stayed "current").
+      await markRoundChanged(tx, opts.roundId);
       const [file] = await tx
         .insert(storedFiles)
         .values({ key, filename: opts.filename, contentType: FORMAT_CONTENT_TYPES[format], size, sha256: hash.digest("hex"), uploadedBy: opts.userId })
@@ -140,7 +154,6 @@ export async function attachCsv(db: Database, opts: AttachOptions): Promise<{ at
         .insert(attachments)
         .values({ runVersionId: pointer.runVersionId, kind: opts.kind, fileId: file!.id, columns: names, rowCount, format, sourceMap: map })
         .returning({ id: attachments.id });
-      await markRoundChanged(tx, opts.roundId);
       return row!.id;
     });
   } catch (e) {

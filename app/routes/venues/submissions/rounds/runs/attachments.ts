@@ -3,7 +3,7 @@ import { requireRound } from "~/access/page-guards.server";
 import { FORMAT_NAMES, formatOfFileName } from "~/checker/series-formats";
 import { attachCsv } from "~/workspace/attachments.server";
 import { mapKey, saveSeriesMap, savedSeriesMaps } from "~/workspace/series-maps.server";
-import { InvalidInput, PayloadTooLarge, StateConflict } from "~/workspace/types";
+import { InvalidInput, PayloadTooLarge, StateConflict, StorageUnavailable } from "~/workspace/types";
 import type { Route } from "./+types/attachments";
 
 const fail = (status: number, message: string, issues: { path: string; message: string }[] = []) =>
@@ -45,6 +45,7 @@ export async function action(args: Route.ActionArgs) {
     if (e instanceof InvalidInput) return fail(400, e.message, e.issues);
     if (e instanceof PayloadTooLarge) return fail(413, e.message);
     if (e instanceof StateConflict) return fail(409, e.message);
+    if (e instanceof StorageUnavailable) return fail(503, e.message);
     throw e;
   }
 }
