@@ -42,6 +42,17 @@ test("claim page: each stated value beside the recomputed one, its interval and 
   await expect(overlay.locator("svg .recharts-line").first()).toBeVisible();
   expect(await overlay.locator(".recharts-legend-item").count()).toBeGreaterThanOrEqual(2);
   expect(await seriousViolations(page), "claim page").toEqual([]);
+
+  // The parameter-space chart on the overview: run labels drawn, none on top of another.
+  await page.goto(`/venues/${fx.venueId}/submissions/${fx.submissionId}/rounds/1`);
+  const labels = page.getByTestId("parameter-label").locator("text");
+  await expect(labels.first()).toBeVisible();
+  const boxes = await labels.evaluateAll((els) => els.map((e) => e.getBoundingClientRect()).map((r) => ({ x: r.x, y: r.y, w: r.width, h: r.height })));
+  for (let i = 0; i < boxes.length; i++)
+    for (let j = i + 1; j < boxes.length; j++) {
+      const [a, b] = [boxes[i]!, boxes[j]!];
+      expect(a.x < b.x + b.w && b.x < a.x + a.w && a.y < b.y + b.h && b.y < a.y + a.h, `labels ${i} and ${j} overlap`).toBe(false);
+    }
 });
 
 test("run page: series statistics in the derived panel, log scale and zoom, and a diff between two versions", async ({ page }) => {
