@@ -4,7 +4,7 @@ import type { Db } from "~/workspace/types";
 import type { RoundContext } from "./round-context.server";
 import { roundFlags } from "./documents.server";
 import { anchorLabels } from "./remarks.server";
-import { reportParts } from "./reviews.server";
+import { reportPartsOf } from "./reviews.server";
 import { renderRichText } from "./tiptap/render.server";
 import { roundFlags as flagViews } from "~/workspace/flags-query.server";
 import { submittedVerdictsByFlag } from "./verdicts.server";
@@ -33,10 +33,10 @@ export async function editorialView(db: Database, ctx: RoundContext, opts: { sho
   const flagVerdicts = Object.fromEntries(Object.entries(verdictRows).map(([id, list]) => [id, list.map((v) => ({ reviewer: who(v.number), verdict: v.verdict, reason: v.reason }))]));
   const label = await anchorLabels(db, ctx.round.id);
   const flagName = new Map(flagRows.map((f) => [f.id, `${f.rule}${f.runLabel ? ` on ${f.runLabel}` : ""}`]));
-  const reports = await Promise.all(
-    reviewRows.map(async (r) => {
-      const parts = await reportParts(db, r.id);
-      // Drafts stay private to the reviewer until submitted.
+  // Drafts stay private to the reviewer until submitted: only submitted reports' parts are read.
+  const partsOf = await reportPartsOf(db, reviewRows.filter((r) => r.state === "submitted").map((r) => r.id));
+  const reports = reviewRows.map((r) => {
+      const parts = partsOf.get(r.id) ?? { verdicts: [], remarks: [] };
       const visible = r.state === "submitted";
       return {
         ...r,
@@ -44,8 +44,7 @@ export async function editorialView(db: Database, ctx: RoundContext, opts: { sho
         remarks: visible ? parts.remarks.map((m) => ({ id: m.id, anchor: label(m.anchorKind, m.anchorRef), html: renderRichText(m.body) })) : [],
         verdicts: visible ? parts.verdicts.map((v) => ({ flag: flagName.get(v.flagId) ?? v.flagId, verdict: v.verdict })) : [],
       };
-    }),
-  );
+    });
   const counts = { mismatch: 0, caution: 0, note: 0 } as Record<string, number>;
   for (const f of flagRows) counts[f.severity] = (counts[f.severity] ?? 0) + 1;
   return { invites, reports, audit, flagCounts: counts, hasPrevious: previous.length > 0, flags: table, flagVerdicts, runs: runLinks };

@@ -1,6 +1,6 @@
 import { absoluteUrl } from "~/mail/links.server";
 import { href } from "react-router";
-import { and, asc, eq, ne } from "drizzle-orm";
+import { and, asc, eq, inArray, ne } from "drizzle-orm";
 import type { Database } from "~db/client";
 import { flags, flagVerdicts, remarks, reviews, rounds } from "~db/schema";
 import { env } from "~/config/env.server";
@@ -75,6 +75,19 @@ export async function reportParts(db: Db, reviewId: string) {
     db.select().from(remarks).where(eq(remarks.reviewId, reviewId)).orderBy(asc(remarks.createdAt)),
   ]);
   return { verdicts, remarks: remarkRows };
+}
+
+/** The verdicts and remarks of several reports at once (two statements however many reports). */
+export async function reportPartsOf(db: Db, reviewIds: string[]) {
+  const out = new Map<string, Awaited<ReturnType<typeof reportParts>>>(reviewIds.map((id) => [id, { verdicts: [], remarks: [] }]));
+  if (!reviewIds.length) return out;
+  const [verdicts, remarkRows] = await Promise.all([
+    db.select({ reviewId: flagVerdicts.reviewId, flagId: flagVerdicts.flagId, verdict: flagVerdicts.verdict, reason: flagVerdicts.reason }).from(flagVerdicts).where(inArray(flagVerdicts.reviewId, reviewIds)),
+    db.select().from(remarks).where(inArray(remarks.reviewId, reviewIds)).orderBy(asc(remarks.createdAt)),
+  ]);
+  for (const { reviewId, ...v } of verdicts) out.get(reviewId)?.verdicts.push(v);
+  for (const m of remarkRows) out.get(m.reviewId)?.remarks.push(m);
+  return out;
 }
 
 /** Submits and locks the report; when it is the last open one, the round's reviews are in. */
