@@ -1,6 +1,7 @@
 #!/usr/bin/env bash
 # Install the Debian packages Runproof's local services and e2e tests need, only if
-# missing. Usage: scripts/system-deps.sh [postgres] [chromium]   (no argument: both)
+# missing. Usage: scripts/system-deps.sh [postgres] [chromium] [nginx]   (no argument: postgres and
+# chromium; nginx only for the scale-out test, npm run test:scale)
 #
 # Deliberately cheap when everything is present (no apt calls at all), so start/test
 # scripts and CI can call it unconditionally.
@@ -21,18 +22,20 @@ have_postgres() {
   return 1
 }
 have_chromium() { [[ -x /usr/bin/chromium ]]; }
+have_nginx() { [[ -x /usr/sbin/nginx ]]; }
 
 missing=()
 for w in "${want[@]}"; do
   case "$w" in
     postgres | postgresql) have_postgres || missing+=(postgresql) ;;
     chromium) have_chromium || missing+=(chromium) ;;
+    nginx) have_nginx || missing+=(nginx) ;;
     -h | --help)
       sed -n '2,3p' "$0"
       exit 0
       ;;
     *)
-      printf 'error: unknown dependency "%s" (known: postgres, chromium)\n' "$w" >&2
+      printf 'error: unknown dependency "%s" (known: postgres, chromium, nginx)\n' "$w" >&2
       exit 2
       ;;
   esac
@@ -71,6 +74,7 @@ for m in "${missing[@]}"; do
   case "$m" in
     postgresql) have_postgres || { echo "error: postgresql installed but no initdb under /usr/lib/postgresql/*/bin" >&2; exit 1; } ;;
     chromium) have_chromium || { echo "error: chromium installed but /usr/bin/chromium is missing" >&2; exit 1; } ;;
+    nginx) have_nginx || { echo "error: nginx installed but /usr/sbin/nginx is missing" >&2; exit 1; } ;;
   esac
 done
 rm -f -- "$log"

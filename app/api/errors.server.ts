@@ -1,5 +1,5 @@
 import { isRouteErrorResponse } from "react-router";
-import { InvalidInput, PayloadTooLarge, StateConflict } from "~/workspace/types";
+import { InvalidInput, PayloadTooLarge, StateConflict, StorageUnavailable } from "~/workspace/types";
 
 /** The one error shape of the public API: `{ error: { code, message, details } }`. */
 export type ApiErrorDetail = { path: string; message: string };
@@ -28,6 +28,7 @@ export async function toApiResponse(thrown: unknown): Promise<Response> {
   if (thrown instanceof InvalidInput) return apiError(400, "invalid_input", thrown.message, thrown.issues);
   if (thrown instanceof StateConflict) return apiError(409, "conflict", thrown.message);
   if (thrown instanceof PayloadTooLarge) return apiError(413, "body_too_large", thrown.message);
+  if (thrown instanceof StorageUnavailable) return apiError(503, "storage_unavailable", thrown.message, [], { "retry-after": "60" });
   if (thrown instanceof Response) {
     if ((thrown.headers.get("content-type") ?? "").includes("application/json")) {
       const body = await thrown.clone().json().catch(() => null);

@@ -25,6 +25,11 @@ export class PayloadTooLarge extends Error {
   readonly status = 413;
 }
 
+/** Object storage did not answer or refused the write; nothing was stored and trying again later may work. */
+export class StorageUnavailable extends Error {
+  readonly status = 503;
+}
+
 /** Too many requests of one kind from one address or for one person; nothing was done. */
 export class TooManyRequests extends Error {
   readonly status = 429;

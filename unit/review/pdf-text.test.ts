@@ -57,6 +57,14 @@ describe("decision letter PDF", () => {
     expect(text).toContain("Decision on round 1: Major revision");
   });
 
+  it("keeps a word wider than the page whole in the text layer, broken over lines", async () => {
+    const long = `https://data.runproof.example/${"veyra-run-".repeat(30)}end`;
+    const bytes = await decisionLetterPdf({ venueName: "Annals", title: "A thin stable layer", roundNumber: 1, decision: "accept", decidedAt: new Date("2027-01-05T10:00:00Z"), letter: { type: "doc", content: [p(t(`See ${long} for the data.`))] }, remarks: [] });
+    const { text, items } = await pages(bytes);
+    expect(text.replace(/\s+/g, "")).toContain(`See${long}forthedata.`);
+    expect(items.filter((i) => i.str.includes("veyra-run-")).length).toBeGreaterThan(1);
+  });
+
   it("keeps the heading, bold, italics and list numbering", async () => {
     const { text, items } = await pages(await decisionLetterPdf({ venueName: "Annals", title: "T", roundNumber: 2, decision: "accept", decidedAt: null, letter, remarks: [] }));
     expect(text).toMatch(/1\.\s*Extend strat-C/);

@@ -38,7 +38,7 @@ const INK: [number, number, number] = [0.11, 0.14, 0.19];
 const MAX_PAGES = 400;
 
 type TextOpts = { size?: number; bold?: boolean; italic?: boolean; indent?: number; gapAfter?: number; colour?: [number, number, number] };
-type Piece = { text: string; font: PDFFont; space: boolean };
+type Piece = { text: string; font: PDFFont; space: boolean; breakBefore?: boolean };
 
 /** A small flowing-text writer over pdf-lib: headings, wrapped styled paragraphs, lists, new pages as needed. */
 export class PdfWriter {
@@ -114,6 +114,32 @@ export class PdfWriter {
     return lines;
   }
 
+  /**
+   * A word wider than the column (a long address, a run of symbols) is cut into pieces that fit,
+   * each starting a new line; drawn whole it would run off the page and out of the text layer.
+   */
+  private fitted(para: Piece[], size: number, width: number): Piece[] {
+    const out: Piece[] = [];
+    for (const p of para) {
+      if (p.font.widthOfTextAtSize(p.text, size) <= width) {
+        out.push(p);
+        continue;
+      }
+      let chunk = "";
+      let first = true;
+      for (const ch of p.text) {
+        if (chunk && p.font.widthOfTextAtSize(chunk + ch, size) > width) {
+          out.push({ ...p, text: chunk, space: first ? p.space : false, breakBefore: true });
+          first = false;
+          chunk = "";
+        }
+        chunk += ch;
+      }
+      if (chunk) out.push({ ...p, text: chunk, space: first ? p.space : false, breakBefore: true });
+    }
+    return out;
+  }
+
   /** Draws styled spans wrapped to the column. */
   spans(spans: Span[], opts: TextOpts & { marker?: string } = {}) {
     if (this.cut) return;
@@ -127,10 +153,10 @@ export class PdfWriter {
       const lines: Piece[][] = [];
       let line: Piece[] = [];
       let used = 0;
-      for (const p of para) {
+      for (const p of this.fitted(para, size, width)) {
         const gap = p.space && line.length ? p.font.widthOfTextAtSize(" ", size) : 0;
         const w = p.font.widthOfTextAtSize(p.text, size);
-        if (line.length && p.space && used + gap + w > width) {
+        if (line.length && (p.space || p.breakBefore) && used + gap + w > width) {
           lines.push(line);
           line = [{ ...p, space: false }];
           used = w;

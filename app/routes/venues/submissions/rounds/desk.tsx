@@ -14,6 +14,8 @@ import { decisionSchema, inviteSchema, RECOMMENDATIONS, reinviteSchema } from "~
 import { conflictCheck, inviteReviewer, reinvitePrevious, resendInvitation, withdrawInvitation } from "~/review/invitations.server";
 import { isId } from "~/access/relation.server";
 import type { Route } from "./+types/desk";
+import { digestRecipients } from "~/review/digest.server";
+import { DigestNow } from "~/components/review/digest-now";
 import { auditEntryLabel, decisionLabel, invitationStateLabel, recommendationLabel, reviewStateLabel, roundStateLabel, verdictLabel } from "~/review/labels";
 
 export const meta: Route.MetaFunction = ({ data: d }) => [{ title: `Round ${d?.round.number ?? ""} · Editor's desk · Runproof` }];
@@ -29,6 +31,7 @@ export async function loader(args: Route.LoaderArgs) {
     ...view,
     canInvite: ctx.can("invite"),
     canDecide: ctx.can("decide"),
+    digestRecipients: ctx.can("send-digest") ? await digestRecipients(db, ctx.submission.id) : null,
   };
 }
 
@@ -256,6 +259,8 @@ export default function EditorialRound({ loaderData: d, actionData }: Route.Comp
           </>
         )}
       </section>
+
+      {d.digestRecipients ? <DigestNow params={p} recipients={d.digestRecipients} /> : null}
 
       <section className="card mt-6" aria-labelledby="audit-h">
         <h2 id="audit-h" className="text-lead">Audit log</h2>
