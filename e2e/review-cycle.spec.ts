@@ -9,7 +9,7 @@ import { demo, login } from "./support/session";
 // claims and flags, a major-revision decision, the authors' answers in round 2, the flags
 // diff, and the PDFs' text.
 test.describe.configure({ mode: "serial" });
-test.setTimeout(180_000);
+test.setTimeout(300_000);
 
 const title = `Stable layer cycle ${Date.now()}`;
 let fx: { venueId: string; submissionId: string; roundId: string; flagCount: number };

@@ -8,7 +8,7 @@ import { demo, login } from "./support/session";
 // beside its flag, the editor's table of verdicts, and the authors reading "Reviewer 1" and
 // answering in round 2.
 test.describe.configure({ mode: "serial" });
-test.setTimeout(180_000);
+test.setTimeout(300_000);
 
 type Fx = { venueId: string; submissionId: string; roundId: string; flagCount: number };
 const title = `Working surface ${Date.now()}`;
