@@ -1,12 +1,25 @@
 import { reactRouter } from "@react-router/dev/vite";
 import tailwindcss from "@tailwindcss/vite";
-import { defineConfig } from "vite";
+import { defineConfig, type Plugin } from "vite";
 import { fileURLToPath } from "node:url";
+
+/** The production build also bundles the command-line checker the help pages offer (scripts/build-cli.mjs). */
+function checkerCliBundle(): Plugin {
+  return {
+    name: "runproof-checker-cli",
+    apply: "build",
+    async closeBundle() {
+      if (!this.environment || this.environment.name !== "ssr") return;
+      const { buildCli } = await import("./scripts/build-cli.mjs");
+      await buildCli();
+    },
+  };
+}
 
 export default defineConfig(({ isSsrBuild }) => ({
   // The server bundle is our own HTTP app (server/index.ts), which wraps React Router's build.
   build: isSsrBuild ? { rollupOptions: { input: "./server/index.ts" } } : undefined,
-  plugins: [tailwindcss(), reactRouter()],
+  plugins: [tailwindcss(), reactRouter(), checkerCliBundle()],
   resolve: {
     alias: {
       "~": fileURLToPath(new URL("./app", import.meta.url)),

@@ -20,6 +20,11 @@ export default [
     ]),
     route("*", "routes/api/v1/not-found.ts"),
   ]),
+  // Downloads offered by the help pages: the checker CLI bundle and the example API client.
+  ...prefix("help/downloads", [
+    route("runproof-check.mjs", "routes/help/checker-download.ts"),
+    route("push-run.mjs", "routes/help/push-run-download.ts"),
+  ]),
   ...prefix("schemas", [
     route("run-1.json", "routes/schemas/run-1.ts"),
     route("claim-1.json", "routes/schemas/claim-1.ts"),
@@ -72,6 +77,7 @@ export default [
             route("packet.pdf", "routes/venues/submissions/rounds/packet-pdf.ts"),
             route("review", "routes/venues/submissions/rounds/review.tsx"),
             route("desk", "routes/venues/submissions/rounds/desk.tsx"),
+            route("digest", "routes/venues/submissions/rounds/digest.ts"),
           ]),
         ]),
       ]),

@@ -69,7 +69,7 @@ async function writeReport(tx: Tx, ids: Ids, roundId: string, reviewer: DemoKey,
   const mismatch = flagRows.find((f) => f.severity === "mismatch");
   const caution = flagRows.find((f) => f.severity === "caution");
   if (mismatch) await setVerdict(tx, review, mismatch.id, "agree");
-  if (caution) await setVerdict(tx, review, caution.id, "ask-authors");
+  if (caution) await setVerdict(tx, review, caution.id, "ask-authors", "How long was the transient you left out of the averages?");
   await saveRemark(tx, review, { anchorKind: "round", body: demoRemarks.round });
   if (mismatch) await saveRemark(tx, review, { anchorKind: "flag", anchorRef: mismatch.id, body: demoRemarks.flag });
   await saveReportMeta(tx, review, { recommendation: opts.recommendation, editorNote: demoRemarks.note });

@@ -46,17 +46,22 @@ async function review(browser: Browser, key: "reviewer1" | "reviewer2", marker: 
   await page.getByRole("button", { name: "Accept and open the review" }).click();
   await expect(page.getByRole("heading", { level: 1, name: title })).toBeVisible();
   await expect(page.getByTestId("advisory-note").first()).toBeVisible();
+  await expect(page.locator('[data-testid="flags-table"][data-ready="true"]')).toBeVisible();
 
-  // A verdict on the first flag, shown at once (optimistic) and still there after reload.
-  const flag = page.getByTestId("flag").first();
+  // A dispute on the first flag, with its reason, shown at once (optimistic) and still there after reload.
+  const flag = page.getByTestId("flag-row").first();
   await flag.getByRole("button", { name: "Dispute" }).click();
+  await page.getByLabel("Why do you dispute this flag?").fill(`${marker} thinks this flag reads the wrong unit.`);
+  await page.getByRole("button", { name: "Save the dispute" }).click();
   await expect(flag.getByRole("button", { name: "Dispute" })).toHaveAttribute("aria-pressed", "true");
 
-  // A remark on the claim, one on a flag.
-  const anchor = page.getByTestId("remark-form").getByRole("combobox");
-  await anchor.selectOption({ label: "Claim Fig. 3 Zonal flow below the outer boundary, with and without the layer" });
-  await writeInEditor(page, "remark-editor", `${marker} claim remark about the zonal flow.`);
-  await page.getByRole("button", { name: "Save remark" }).click();
+  // A remark on the claim, written beside it.
+  await page.getByTestId("claim").first().getByRole("button", { name: /^Remark/ }).click();
+  const claimComposer = page.getByTestId("claim-remark");
+  await expect(claimComposer.getByTestId("remark-anchor")).toContainText("Zonal flow below the outer boundary");
+  await claimComposer.getByRole("textbox").click();
+  await page.keyboard.type(`${marker} claim remark about the zonal flow.`);
+  await claimComposer.getByRole("button", { name: "Save remark" }).click();
   await expect(page.getByTestId("my-remarks")).toContainText(`${marker} claim remark`);
   // Until the report is submitted, a remark can be edited in place.
   await page.getByTestId("my-remarks").getByRole("button", { name: "Edit" }).first().click();
@@ -67,14 +72,14 @@ async function review(browser: Browser, key: "reviewer1" | "reviewer2", marker: 
   await edit.getByRole("button", { name: "Save changes" }).click();
   await expect(page.getByTestId("my-remarks")).toContainText("zonal flow. Edited.");
   await expect(page.getByTestId("remark-edit-form")).toHaveCount(0);
-  const flagOption = await anchor.locator("option", { hasText: "A.pm-from-diffusivities" }).getAttribute("value");
-  await anchor.selectOption(flagOption!);
-  // Inline maths: "$…$" becomes a TeX mark as it is typed, stored as TeX text.
-  const editor = page.getByTestId("remark-editor");
+  // A remark on a flag, written beside it. Inline maths: "$…$" becomes a TeX mark as it is typed.
+  await page.locator('[data-testid="flag-row"][data-rule="A.pm-from-diffusivities"]').getByRole("button", { name: "Remark" }).click();
+  const flagComposer = page.getByTestId("flag-remark");
+  const editor = flagComposer.getByRole("textbox");
   await editor.click();
   await page.keyboard.type(`${marker} flag remark: Pm is $\\nu/\\eta$ here.`);
-  await expect(editor.locator("code.tex")).toHaveText("\\nu/\\eta");
-  await page.getByRole("button", { name: "Save remark" }).click();
+  await expect(flagComposer.locator("code.tex")).toHaveText("\\nu/\\eta");
+  await flagComposer.getByRole("button", { name: "Save remark" }).click();
   await expect(page.getByTestId("my-remarks")).toContainText(`${marker} flag remark`);
   // Saved, the formula is typeset by KaTeX (its MathML carries ν and η).
   await expect(page.getByTestId("my-remarks").locator(".katex").first()).toBeVisible();
@@ -85,7 +90,7 @@ async function review(browser: Browser, key: "reviewer1" | "reviewer2", marker: 
   await page.getByRole("button", { name: "Submit the report" }).click();
   await expect(page.getByTestId("report-locked")).toBeVisible();
   await page.reload();
-  await expect(page.getByTestId("flag").first().getByRole("button", { name: "Dispute" })).toHaveAttribute("aria-pressed", "true");
+  await expect(page.getByTestId("flag-row").first().getByRole("button", { name: "Dispute" })).toHaveAttribute("aria-pressed", "true");
   await expect(page.getByRole("button", { name: "Save remark" })).toHaveCount(0);
   await page.context().close();
 }
@@ -120,7 +125,7 @@ test("editor invites two reviewers, both review, the editor decides, the authors
   await expect(editor.getByTestId("desk-round-state")).toContainText("reviews in");
   await expect(editor.getByTestId("report-1")).toContainText("R1 confidential note");
   await expect(editor.getByTestId("report-2")).toContainText("R2 flag remark");
-  await editor.getByRole("combobox").selectOption("major-revision");
+  await editor.getByRole("combobox", { name: "Decision", exact: true }).selectOption("major-revision");
   await writeInEditor(editor, "letter-editor", "Please reconcile the magnetic Prandtl number with the diffusivities.");
   await editor.getByRole("button", { name: "Release decision to the authors" }).click();
   await expect(editor.getByTestId("decision-released")).toContainText("Major revision");

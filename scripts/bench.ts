@@ -133,7 +133,9 @@ async function main() {
         if (p.path === "/healthz") floor = r.rps;
         const js = p.path === "/healthz" ? null : await jsGzip(BASE, p.path, p.cookie);
         const n = statements.get(p.name);
-        rows.push(`| ${p.name} | ${r.rps.toFixed(0)} | ${r.p50} | ${r.p99} | ${(r.rps / floor).toFixed(2)} | ${r.other} | ${l.p99Ms.toFixed(1)} | ${l.peakRssMb.toFixed(0)} | ${js ? js.kb.toFixed(0) : "–"} | ${n ? n.join(" → ") : "–"} |`);
+        // CPU time per answered request: what the page costs the server whatever else the machine does.
+        const cpuPerRequest = r.total ? l.cpuMs / r.total : Number.NaN;
+        rows.push(`| ${p.name} | ${r.rps.toFixed(0)} | ${r.p50} | ${r.p99} | ${(r.rps / floor).toFixed(2)} | ${cpuPerRequest.toFixed(1)} | ${r.other} | ${l.p99Ms.toFixed(1)} | ${l.peakRssMb.toFixed(0)} | ${js ? js.kb.toFixed(0) : "–"} | ${n ? n.join(" → ") : "–"} |`);
         console.log(rows[rows.length - 1]);
       }
     };
@@ -176,8 +178,8 @@ async function main() {
     const [flags] = await sql`select count(*)::int as n from flags where round_id = ${w.roundId}`;
     console.log(`\nscale: ${LARGE.submissions} sent submissions across ${w.venueIds.length} venues; heavy round ${LARGE.runs} runs, ${LARGE.claims} claims, ${flags!.n} flags, ${LARGE.series} series of ${LARGE.rows} rows × 5 columns, ${LARGE.reviews} reports with ${LARGE.remarks} remarks; ${CONNECTIONS} connections, ${SECONDS} s per page; load average ${(await import("node:os")).loadavg().map((x) => x.toFixed(1)).join(" ")}`);
     console.log(`SQL statements per page: at ${SMALL.submissions} submissions / ${SMALL.runs} runs / ${SMALL.reviews} reports with ${SMALL.remarks} remarks → at the large size\n`);
-    console.log("| page | req/s | p50 ms | p99 ms | vs floor | non-2xx | loop p99 ms | server peak RSS MB | JS gzip KB | SQL statements (small → large) |");
-    console.log("| --- | --- | --- | --- | --- | --- | --- | --- | --- | --- |");
+    console.log("| page | req/s | p50 ms | p99 ms | vs floor | server CPU ms per request | non-2xx | loop p99 ms | server peak RSS MB | JS gzip KB | SQL statements (small → large) |");
+    console.log("| --- | --- | --- | --- | --- | --- | --- | --- | --- | --- | --- |");
     for (const r of rows) console.log(r);
     console.log(`\n${editLine}\n${uploadLine}`);
   } finally {

@@ -42,7 +42,7 @@ export const roundAccessMiddleware: MiddlewareFunction<Response> = async (args, 
   return next();
 };
 
-const AUTHOR_WRITES: ReadonlySet<Action> = new Set(["write-runs", "write-claims", "answer-flags", "send-round", "write-details"]);
+const AUTHOR_WRITES: ReadonlySet<Action> = new Set(["write-runs", "write-claims", "answer-flags", "send-round", "write-details", "delete-draft"]);
 
 /**
  * The round, when the policy lets this person do `action` in it; else 404. Authors who may read

@@ -34,11 +34,13 @@ export const ACTIONS = [
   "write-claims",
   "answer-flags",
   "send-round",
+  "delete-draft", // delete the whole submission while its only round is an unsent draft
   "answer-remarks", // the authors' answers to released remarks, carried into the next round
   "respond-invitation",
   "review",
   "invite",
   "decide",
+  "send-digest", // mail the authors this submission's digest now, outside its schedule
 ] as const;
 export type Action = (typeof ACTIONS)[number];
 
@@ -61,7 +63,7 @@ type Grants = Partial<Record<PolicyState, readonly Action[]>>;
 /** What each relation may do in each state; anything not listed is refused. */
 const GRANTS: Record<Relation, Grants> = {
   author: {
-    draft: [...AUTHOR_READS, ...AUTHOR_WRITES, "send-round"],
+    draft: [...AUTHOR_READS, ...AUTHOR_WRITES, "send-round", "delete-draft"],
     sent: AUTHOR_READS,
     "under-review": AUTHOR_READS,
     decided: [...AUTHOR_READS, "read-decision", "answer-remarks"],
@@ -75,16 +77,17 @@ const GRANTS: Record<Relation, Grants> = {
     withdrawn: AUTHOR_READS,
   },
   editor: {
-    sent: [...EDITOR_READS, "invite", "decide"],
-    "under-review": [...EDITOR_READS, "invite", "decide"],
-    decided: [...EDITOR_READS, "read-decision"],
+    sent: [...EDITOR_READS, "invite", "decide", "send-digest"],
+    "under-review": [...EDITOR_READS, "invite", "decide", "send-digest"],
+    decided: [...EDITOR_READS, "read-decision", "send-digest"],
     withdrawn: EDITOR_READS,
   },
   // The instance's administrator oversees but does not handle: reads what an editor reads.
+  // …and may send a submission's digest out of schedule, as its editors may.
   admin: {
-    sent: EDITOR_READS,
-    "under-review": EDITOR_READS,
-    decided: [...EDITOR_READS, "read-decision"],
+    sent: [...EDITOR_READS, "send-digest"],
+    "under-review": [...EDITOR_READS, "send-digest"],
+    decided: [...EDITOR_READS, "read-decision", "send-digest"],
     withdrawn: EDITOR_READS,
   },
   reviewer: {

@@ -6,7 +6,7 @@
  * rows are checked like CSV rows (see csv.ts). Feed lines one at a time, so a stream of any
  * length is read without holding its text.
  */
-import { ColumnBuilder, CsvFormatError, type CsvKind } from "./csv.ts";
+import { ColumnBuilder, CsvFormatError, type CsvKind, type TypedColumns } from "./csv.ts";
 import type { Columns } from "./schema.ts";
 
 /** Column names in file order; null skips a column. */
@@ -86,6 +86,10 @@ export class ColumnTextReader {
 
   finish(): Columns {
     return this.builder.finish();
+  }
+
+  finishTyped(): TypedColumns {
+    return this.builder.finishTyped();
   }
 }
 

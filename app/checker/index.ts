@@ -2,6 +2,7 @@
  * Runproof checker engine: a pure function from run records (+ claim, policy, series,
  * spectra) to derived quantities and flags. No I/O.
  */
+import { statedComparisons, type StatedComparison } from "./comparisons.ts";
 import { buildRunContext, type ClaimContext, type RunContext } from "./context.ts";
 import type { InputError } from "./paths.ts";
 import { policySchema, resolvePolicy } from "./policy.ts";
@@ -31,6 +32,7 @@ export { rules, ruleById, FAMILIES } from "./registry.ts";
 export { DEFAULT_POLICY, resolvePolicy, policySchema, type Policy, type PolicyOverrides } from "./policy.ts";
 export { runJsonSchema, claimJsonSchema } from "./json-schema.ts";
 export type { SeriesStats, ColumnStats } from "./series.ts";
+export { statedComparisons, type StatedComparison, type StatedOutcome, type StoredInterval } from "./comparisons.ts";
 
 /** Thrown by `check` for invalid input; `errors` carry JSON paths. */
 export class CheckInputError extends Error {
@@ -105,15 +107,16 @@ export class ClaimCheckError extends Error {
 
 /**
  * A whole round from stored analyses: every run's context built once, then each claim's flags
- * against those contexts (a claim needs no run rule again). `claimFlags[i]` belongs to `claims[i]`.
+ * against those contexts (a claim needs no run rule again). `claimFlags[i]` belongs to `claims[i]`,
+ * and so does `claimComparisons[i]` (each stated value beside what it was checked against).
  * Stored records are validated again under the current schema (a stricter checker may refuse a
  * record stored earlier): runs throw CheckInputError, a claim throws ClaimCheckError.
  */
-export function checkPreparedRound(input: PreparedInput & { claims: ClaimRecord[] }): { runs: CheckOutput["runs"]; claimFlags: Flag[][] } {
+export function checkPreparedRound(input: PreparedInput & { claims: ClaimRecord[] }): { runs: CheckOutput["runs"]; claimFlags: Flag[][]; claimComparisons: StatedComparison[][] } {
   const p = policySchema.safeParse(input.policy ?? {});
   if (!p.success) throw new CheckInputError(zodErrors(p.error, input.policy, ["policy"]));
   const policy = resolvePolicy(p.data);
-  if (!input.runs.length && !input.claims.length) return { runs: [], claimFlags: [] };
+  if (!input.runs.length && !input.claims.length) return { runs: [], claimFlags: [], claimComparisons: [] };
   const parsedRuns = input.runs.length ? parseCheckInput({ runs: input.runs }) : ({ ok: true, value: { runs: [] } } as const);
   if (!parsedRuns.ok) throw new CheckInputError(parsedRuns.errors);
   const contexts = parsedRuns.value.runs.map((run, i) =>
@@ -121,16 +124,19 @@ export function checkPreparedRound(input: PreparedInput & { claims: ClaimRecord[
   );
   const runs = contexts.map((ctx) => ({ label: ctx.label, derived: ctx.derived, flags: RUN_RULES.flatMap((rule) => rule(ctx)) }));
   const byLabel = new Map(contexts.map((c) => [c.label, c]));
+  const claimComparisons: StatedComparison[][] = [];
   const claimFlags = input.claims.map((raw, i) => {
     try {
       const c = claimSchema.safeParse(raw);
       if (!c.success) throw new CheckInputError(zodErrors(c.error, raw, ["claim"]));
-      return claimRules({ claim: c.data, runs: byLabel, policy });
+      const cc = { claim: c.data, runs: byLabel, policy };
+      claimComparisons.push(statedComparisons(cc));
+      return claimRules(cc);
     } catch (e) {
       throw new ClaimCheckError(i, e);
     }
   });
-  return { runs, claimFlags };
+  return { runs, claimFlags, claimComparisons };
 }
 
 function checkContexts(

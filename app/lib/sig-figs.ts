@@ -5,12 +5,21 @@ const SUP: Record<string, string> = { "0": "⁰", "1": "¹", "2": "²", "3": "³
  * large magnitudes as "2.5 × 10⁷". Integers below a million (grid sizes, degrees) stay whole.
  */
 export function sig4(x: number): string {
+  return sigFigs(x, 4);
+}
+
+/**
+ * The same with `digits` significant figures (1–12): for the ends of an interval read from a
+ * stated value, which keep the stated digit (3.0e-5 → 2.95 × 10⁻⁵).
+ */
+export function sigFigs(x: number, digits: number): string {
+  const n = Math.min(12, Math.max(1, Math.round(digits)));
   if (!Number.isFinite(x)) return String(x);
   if (x === 0) return "0";
   if (Number.isInteger(x) && Math.abs(x) < 1e6) return String(x);
   const a = Math.abs(x);
-  if (a >= 1e-3 && a < 1e5) return String(Number(x.toPrecision(4)));
-  const [mantissa, exp] = x.toExponential(3).split("e") as [string, string];
+  if (a >= 1e-3 && a < 1e5) return String(Number(x.toPrecision(n)));
+  const [mantissa, exp] = x.toExponential(n - 1).split("e") as [string, string];
   const m = String(Number(mantissa));
   const e = [...String(Number(exp))].map((c) => SUP[c] ?? c).join("");
   return m === "1" ? `10${e}` : m === "-1" ? `−10${e}` : `${m} × 10${e}`;

@@ -5,17 +5,19 @@ import { diffFlags, diffParameters, groupByRuleAndRun } from "./diff";
 import { roundFlags } from "./documents.server";
 import { releasedRemarks, responsesTo } from "./remarks.server";
 import { renderRichText } from "./tiptap/render.server";
+import { releasedVerdicts } from "./verdicts.server";
 
 /** Round N against round N-1: flags diff by fingerprint, parameter diff per run, remarks and answers. */
 export async function roundChanges(db: Database, ctx: RoundContext) {
   if (ctx.round.number < 2) return null;
   const prev = await roundContext(db, { submissionId: ctx.submission.id, number: ctx.round.number - 1 });
-  const [before, after, runsBefore, runsAfter, remarks] = await Promise.all([
+  const [before, after, runsBefore, runsAfter, remarks, verdicts] = await Promise.all([
     roundFlags(db, prev.round.id),
     roundFlags(db, ctx.round.id),
     roundRunList(db, prev.round.id),
     roundRunList(db, ctx.round.id),
     releasedRemarks(db, prev.round),
+    releasedVerdicts(db, prev.round),
   ]);
   const flags = diffFlags(before, after);
   const old = new Map(runsBefore.map((r) => [r.runId, r]));
@@ -36,6 +38,8 @@ export async function roundChanges(db: Database, ctx: RoundContext) {
     flags: { added: slim(flags.added), resolved: slim(flags.resolved), persisting: slim(flags.persisting), counts: { added: flags.added.length, resolved: flags.resolved.length, persisting: flags.persisting.length } },
     runs,
     removed,
+    // Each flag's verdicts of the previous round as "Reviewer N", with the authors' answers.
+    verdicts: verdicts.map((f) => ({ flagId: f.flagId, rule: f.rule, runLabel: f.runLabel, message: f.message, verdicts: f.verdicts.map((v) => ({ reviewer: v.reviewer, number: v.number, verdict: v.verdict, reason: v.reason, answer: v.answer })) })),
     remarks: remarks.map((r) => ({ id: r.id, reviewer: r.reviewer, anchor: r.anchor, html: renderRichText(r.body), response: answers.get(r.id) ?? null })),
   };
 }

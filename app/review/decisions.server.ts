@@ -13,6 +13,7 @@ import { roundContext, submissionAuthors } from "./round-context.server";
 import { letterFor } from "./documents.server";
 import { OPEN_STATES } from "./invitations.server";
 import { releasedRemarks } from "./remarks.server";
+import { releasedVerdicts } from "./verdicts.server";
 import { openRevisionRound } from "./revision.server";
 import { decisionLabel } from "./labels";
 import { richMailPart } from "./tiptap/render.server";
@@ -57,6 +58,10 @@ export async function releaseDecision(db: Database, opts: { roundId: string; dec
     const ctx = { ...before, round };
     const pdf = await letterFor(tx, ctx);
     const remarks = await releasedRemarks(tx, round);
+    // Disputes and questions on flags, as "Reviewer N" with their reasons (agreements need no mail).
+    const asked = (await releasedVerdicts(tx, round)).flatMap((f) =>
+      f.verdicts.filter((v) => v.reason).map((v) => `${v.reviewer} ${v.verdict === "dispute" ? "disputes" : "asks the authors about"} flag ${f.rule}${f.runLabel ? ` (run ${f.runLabel})` : ""}: ${v.reason}`),
+    );
     const roundUrl = absoluteUrl(href("/venues/:venueId/submissions/:submissionId/rounds/:round/decision", { venueId: ctx.venue.id, submissionId: ctx.submission.id, round: String(round.number) }));
     for (const person of await submissionAuthors(tx, round.submissionId)) {
       await enqueueMail(
@@ -69,6 +74,7 @@ export async function releaseDecision(db: Database, opts: { roundId: string; dec
             `The editor of ${ctx.venue.name} decided on round ${round.number}: ${decisionLabel(opts.decision)}.`,
             richMailPart(opts.letter),
             ...remarks.flatMap((r) => [`${r.reviewer}, on ${r.anchor}:`, richMailPart(r.body)]),
+            ...asked,
             ...(next ? [`Round ${next.number} is open for your revision, prefilled from round ${round.number}; answer each remark there.`] : []),
             "The decision letter with the remarks is attached as a PDF.",
           ],

@@ -84,22 +84,40 @@ export async function previewDigest(db: Database, userId: string, now = new Date
  */
 export async function sendDigestNow(db: Database, opts: { submissionId: string; now?: Date }) {
   const now = opts.now ?? new Date();
-  const people = await db
-    .selectDistinct(personColumns)
-    .from(user)
-    .innerJoin(submissionMembers, eq(submissionMembers.userId, user.id))
-    .where(and(eq(submissionMembers.submissionId, opts.submissionId), inArray(submissionMembers.role, ["author", "co-author"]), ne(user.digest, "none")));
+  const people = await digestPeople(db, opts.submissionId);
   return db.transaction(async (tx) => {
     let queued = 0;
+    const sentTo: { name: string; email: string }[] = [];
+    const nothingNew: { name: string; email: string }[] = [];
     for (const person of people) {
       const freq = person.digest as "daily" | "weekly";
       const { message } = await digestOf(tx as unknown as Database, person, freq, now, opts.submissionId);
-      if (!message) continue;
+      if (!message) {
+        nothingNew.push({ name: person.name, email: person.email });
+        continue;
+      }
       const id = await enqueueMail(tx, person.email, digestMail(person, freq, message), { dedupeKey: `digest-now:${opts.submissionId}:${person.email}:${now.toISOString().slice(0, 16)}` });
-      if (id) queued++;
+      if (id) {
+        queued++;
+        sentTo.push({ name: person.name, email: person.email });
+      }
     }
-    return { queued, people: people.length };
+    return { queued, people: people.length, sentTo, nothingNew };
   });
+}
+
+/** The authors and co-authors of a submission who get digests (the ones "send now" would mail). */
+function digestPeople(db: Database, submissionId: string) {
+  return db
+    .selectDistinct(personColumns)
+    .from(user)
+    .innerJoin(submissionMembers, eq(submissionMembers.userId, user.id))
+    .where(and(eq(submissionMembers.submissionId, submissionId), inArray(submissionMembers.role, ["author", "co-author"]), ne(user.digest, "none")));
+}
+
+/** Who "send now" would mail, by name and address (for the confirmation the editor sees first). */
+export async function digestRecipients(db: Database, submissionId: string) {
+  return (await digestPeople(db, submissionId)).map((p) => ({ name: p.name, email: p.email }));
 }
 
 /**

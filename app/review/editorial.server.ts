@@ -1,15 +1,18 @@
 import { and, asc, desc, eq } from "drizzle-orm";
-import { auditLog, invitations, reviews, rounds, user } from "~db/schema";
+import { auditLog, invitations, reviews, roundRuns, rounds, runs, user } from "~db/schema";
 import type { Db } from "~/workspace/types";
 import type { RoundContext } from "./round-context.server";
 import { roundFlags } from "./documents.server";
 import { anchorLabels } from "./remarks.server";
 import { reportParts } from "./reviews.server";
 import { renderRichText } from "./tiptap/render.server";
+import { roundFlags as flagViews } from "~/workspace/flags-query.server";
+import { submittedVerdictsByFlag } from "./verdicts.server";
+import type { Database } from "~db/client";
 
 /** What the editor's round page shows: invitations, full reports (with editor-only notes), audit. */
-export async function editorialView(db: Db, ctx: RoundContext) {
-  const [invites, reviewRows, audit, flagRows, previous] = await Promise.all([
+export async function editorialView(db: Database, ctx: RoundContext, opts: { showReviewerNames: boolean } = { showReviewerNames: false }) {
+  const [invites, reviewRows, audit, flagRows, previous, table, verdictRows, runLinks] = await Promise.all([
     db.select({ id: invitations.id, email: invitations.email, state: invitations.state, dueAt: invitations.dueAt, createdAt: invitations.createdAt }).from(invitations).where(eq(invitations.roundId, ctx.round.id)).orderBy(asc(invitations.createdAt)),
     db
       .select({ id: reviews.id, number: reviews.number, state: reviews.state, recommendation: reviews.recommendation, editorNote: reviews.editorNote, dueAt: reviews.dueAt, submittedAt: reviews.submittedAt, name: user.name, email: user.email })
@@ -20,7 +23,14 @@ export async function editorialView(db: Db, ctx: RoundContext) {
     db.select({ id: auditLog.id, action: auditLog.action, detail: auditLog.detail, at: auditLog.at, actor: user.name }).from(auditLog).leftJoin(user, eq(user.id, auditLog.actorId)).where(eq(auditLog.submissionId, ctx.submission.id)).orderBy(desc(auditLog.at)),
     roundFlags(db, ctx.round.id),
     ctx.round.number > 1 ? db.select({ id: rounds.id }).from(rounds).where(and(eq(rounds.submissionId, ctx.submission.id), eq(rounds.number, ctx.round.number - 1))) : Promise.resolve([]),
+    flagViews(db, ctx.round.id),
+    submittedVerdictsByFlag(db, ctx.round.id),
+    db.select({ runId: runs.id, label: runs.label }).from(roundRuns).innerJoin(runs, eq(runs.id, roundRuns.runId)).where(eq(roundRuns.roundId, ctx.round.id)),
   ]);
+  // The round's flags with each submitted report's verdict; names only where the policy shows them.
+  const nameOf = new Map(reviewRows.map((r) => [r.number, r.name]));
+  const who = (n: number) => (opts.showReviewerNames && nameOf.get(n) ? `Reviewer ${n} (${nameOf.get(n)})` : `Reviewer ${n}`);
+  const flagVerdicts = Object.fromEntries(Object.entries(verdictRows).map(([id, list]) => [id, list.map((v) => ({ reviewer: who(v.number), verdict: v.verdict, reason: v.reason }))]));
   const label = await anchorLabels(db, ctx.round.id);
   const flagName = new Map(flagRows.map((f) => [f.id, `${f.rule}${f.runLabel ? ` on ${f.runLabel}` : ""}`]));
   const reports = await Promise.all(
@@ -38,6 +48,6 @@ export async function editorialView(db: Db, ctx: RoundContext) {
   );
   const counts = { mismatch: 0, caution: 0, note: 0 } as Record<string, number>;
   for (const f of flagRows) counts[f.severity] = (counts[f.severity] ?? 0) + 1;
-  return { invites, reports, audit, flagCounts: counts, hasPrevious: previous.length > 0 };
+  return { invites, reports, audit, flagCounts: counts, hasPrevious: previous.length > 0, flags: table, flagVerdicts, runs: runLinks };
 }
 

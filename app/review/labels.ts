@@ -52,6 +52,14 @@ const SEVERITIES: Record<string, string> = {
   note: "Note",
 };
 
+/** A stated value of a claim against the recomputed one (the claim page). */
+const STATED_OUTCOMES: Record<string, string> = {
+  agrees: "Agrees",
+  differs: "Differs",
+  unverifiable: "Cannot be recomputed",
+  undecided: "Cannot be decided",
+};
+
 /** Last resort for a value this module does not know yet: "reviews-in" → "Reviews in". */
 export function humanize(slug: string) {
   const words = slug.replace(/[._-]+/g, " ").trim();
@@ -69,6 +77,7 @@ export const invitationStateLabel = pick(INVITATION_STATES);
 export const reviewStateLabel = pick(REVIEW_STATES);
 export const verdictLabel = pick(VERDICTS);
 export const severityLabel = pick(SEVERITIES);
+export const statedOutcomeLabel = pick(STATED_OUTCOMES);
 
 /** Choices for forms, in the order people expect them. */
 export const OUTCOME_CHOICES = Object.entries(OUTCOMES).map(([value, label]) => ({ value, label }));

@@ -34,10 +34,29 @@ export const decisionSchema = z.object({
   version: z.coerce.number().int().min(0).max(1_000_000),
 });
 
-export const verdictSchema = z.object({
-  intent: z.literal("verdict"),
-  flagId: z.uuid(),
-  verdict: z.enum(["agree", "dispute", "ask-authors"]),
+/** A reason or question beside a verdict: bounded, so a page of hundreds of flags stays readable. */
+export const VERDICT_REASON_MAX = 2000;
+
+export const verdictSchema = z
+  .object({
+    intent: z.literal("verdict"),
+    flagId: z.uuid({ message: "Choose the flag this verdict is about." }),
+    verdict: z.enum(["agree", "dispute", "ask-authors"], { message: "Choose agree, dispute or ask the authors." }),
+    reason: z.string().trim().max(VERDICT_REASON_MAX, `Keep the reason under ${VERDICT_REASON_MAX.toLocaleString("en")} characters.`).optional(),
+  })
+  .superRefine((v, ctx) => {
+    // Agreeing needs no words; disputing a flag or asking the authors does: they read it.
+    if (v.verdict !== "agree" && !v.reason)
+      ctx.addIssue({ code: "custom", path: ["reason"], message: v.verdict === "dispute" ? "Say why you dispute this flag; the authors will read it." : "Write the question for the authors." });
+  });
+export type VerdictInput = Omit<z.infer<typeof verdictSchema>, "intent">;
+
+/** The authors' answer to one reviewer's verdict on a flag, written in the next round. */
+export const verdictAnswerSchema = z.object({
+  intent: z.literal("answer-verdict"),
+  flagId: z.uuid({ message: "Choose the flag you answer." }),
+  reviewer: z.coerce.number().int().min(1).max(100),
+  answer: z.string().trim().min(1, "Write your answer to the reviewer.").max(20_000, "Keep the answer under 20,000 characters."),
 });
 
 export const remarkSchema = z.object({

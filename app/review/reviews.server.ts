@@ -10,7 +10,7 @@ import { audit } from "~/workspace/audit.server";
 import { InvalidInput, StateConflict, type Db } from "~/workspace/types";
 import { roundContext, venueEditors } from "./round-context.server";
 import { recommendationLabel } from "./labels";
-import type { RemarkInput } from "./review-forms";
+import { VERDICT_REASON_MAX, type RemarkInput } from "./review-forms";
 import { isEmptyDoc } from "./tiptap/extensions";
 
 /** The signed-in reviewer's report on a round, or null when they hold none. */
@@ -24,15 +24,18 @@ function assertOpen(review: { state: string }) {
   if (review.state === "submitted") throw new StateConflict("This report was submitted and is locked.");
 }
 
-export async function setVerdict(db: Db, review: typeof reviews.$inferSelect, flagId: string, verdict: "agree" | "dispute" | "ask-authors") {
+export async function setVerdict(db: Db, review: typeof reviews.$inferSelect, flagId: string, verdict: "agree" | "dispute" | "ask-authors", reason?: string | null) {
   assertOpen(review);
+  const why = verdict === "agree" ? null : (reason?.trim() || null);
+  if (verdict !== "agree" && !why) throw new InvalidInput("A dispute or a question needs a reason.", [{ path: "reason", message: "Say why, in a sentence or two; the authors will read it." }]);
+  if (why && why.length > VERDICT_REASON_MAX) throw new InvalidInput("The reason is too long.", [{ path: "reason", message: `Keep the reason under ${VERDICT_REASON_MAX} characters.` }]);
   const [flag] = await db.select({ id: flags.id }).from(flags).where(and(eq(flags.id, flagId), eq(flags.roundId, review.roundId)));
   if (!flag) throw new InvalidInput("No such flag in this round.", [{ path: "flagId", message: "The flag is not part of the round under review." }]);
   await db
     .insert(flagVerdicts)
-    .values({ reviewId: review.id, flagId, verdict })
-    .onConflictDoUpdate({ target: [flagVerdicts.reviewId, flagVerdicts.flagId], set: { verdict, updatedAt: new Date() } });
-  return { flagId, verdict };
+    .values({ reviewId: review.id, flagId, verdict, reason: why })
+    .onConflictDoUpdate({ target: [flagVerdicts.reviewId, flagVerdicts.flagId], set: { verdict, reason: why, updatedAt: new Date() } });
+  return { flagId, verdict, reason: why };
 }
 
 export async function saveRemark(db: Db, review: typeof reviews.$inferSelect, input: RemarkInput) {
@@ -68,7 +71,7 @@ export async function saveReportMeta(db: Db, review: typeof reviews.$inferSelect
 
 export async function reportParts(db: Db, reviewId: string) {
   const [verdicts, remarkRows] = await Promise.all([
-    db.select({ flagId: flagVerdicts.flagId, verdict: flagVerdicts.verdict }).from(flagVerdicts).where(eq(flagVerdicts.reviewId, reviewId)),
+    db.select({ flagId: flagVerdicts.flagId, verdict: flagVerdicts.verdict, reason: flagVerdicts.reason }).from(flagVerdicts).where(eq(flagVerdicts.reviewId, reviewId)),
     db.select().from(remarks).where(eq(remarks.reviewId, reviewId)).orderBy(asc(remarks.createdAt)),
   ]);
   return { verdicts, remarks: remarkRows };

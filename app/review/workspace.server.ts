@@ -38,7 +38,7 @@ export async function reviewerView(db: Database, ctx: RoundContext, review: { id
     runRows,
     plots: plots.map((p) => ({ label: p.label, series: p.series, spectrum: p.spectrum })),
     flags: flagRows,
-    verdicts: Object.fromEntries(parts.verdicts.map((v) => [v.flagId, v.verdict])) as Record<string, string>,
+    verdicts: Object.fromEntries(parts.verdicts.map((v) => [v.flagId, { verdict: v.verdict, reason: v.reason }])) as Record<string, { verdict: string; reason: string | null }>,
     // The reviewer's own remarks come with their JSON too, so they can be edited until submitted.
     remarks: parts.remarks.map((m) => ({ id: m.id, anchorKind: m.anchorKind, anchorRef: m.anchorRef, anchor: label(m.anchorKind, m.anchorRef), html: renderRichText(m.body), body: m.body })),
   };

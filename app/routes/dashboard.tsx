@@ -20,7 +20,7 @@ export async function loader(args: Route.LoaderArgs) {
     myDecisions(db, user.id),
     myInvitations(db, user),
   ]);
-  return { name: user.name, admin: user.role === "admin", ...lists, reviews, venuesOpen, decisions, invited };
+  return { name: user.name, admin: user.role === "admin", draftDeleted: url.searchParams.get("deleted") === "1", ...lists, reviews, venuesOpen, decisions, invited };
 }
 
 function Section({ title, list, name, empty, testId }: { title: string; list: DashboardList; name: string; empty: string; testId: string }) {
@@ -61,6 +61,11 @@ export default function Dashboard({ loaderData: d }: Route.ComponentProps) {
   return (
     <main className="mx-auto max-w-5xl p-gutter">
       <h1 className="text-title">What needs you, {d.name}</h1>
+      {d.draftDeleted ? (
+        <p role="status" className="mt-2 text-lichen" data-testid="draft-deleted">
+          The draft submission was deleted.
+        </p>
+      ) : null}
       {holdsNothing ? (
         <p className="mt-3 text-basalt-soft" data-testid="no-roles">
           You hold no role yet. An editor adds you to a venue, or an author lists you on a submission; you can also

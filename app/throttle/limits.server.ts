@@ -20,6 +20,8 @@ export const RULES = {
   /** Password-reset, confirmation and sign-up mails asked for from one address. */
   accountMailPerAddress: { name: "account-mail:address", points: 10, seconds: 60 * 60 },
   invitationMailPerAddress: { name: "invitation-mail:address", points: 20, seconds: 60 * 60 },
+  /** "Send the digest now" for one submission: a few times an hour, whoever asks (the authors' inboxes are what it protects). */
+  digestNowPerSubmission: { name: "digest-now:submission", points: 3, seconds: 60 * 60 },
 } as const satisfies Record<string, LimitRule>;
 
 const limiters = new Map<string, RateLimiterDrizzle>();

@@ -1,7 +1,7 @@
 import { asc, eq } from "drizzle-orm";
 import type { Database } from "~db/client";
 import { claims, flags } from "~db/schema";
-import { ruleById } from "~/checker/registry";
+import { FAMILIES, ruleById } from "~/checker/registry";
 import { fmt } from "~/checker/types";
 
 import type { FlagView } from "./view-types";
@@ -28,6 +28,8 @@ export async function roundFlags(db: Database, roundId: string): Promise<FlagVie
       id: f.id,
       rule: f.rule,
       ruleTitle: info?.title ?? f.rule,
+      family: info?.family ?? f.rule.split(".")[0] ?? "",
+      familyTitle: info ? FAMILIES[info.family] : "",
       explanation: info?.explanation ?? "",
       severity: f.severity,
       runLabel: f.runLabel,

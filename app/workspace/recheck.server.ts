@@ -2,8 +2,8 @@ import { createHash } from "node:crypto";
 import { and, eq, inArray, isNull, notInArray, or, sql } from "drizzle-orm";
 import type { Database } from "~db/client";
 import { attachments, claims, flags, roundRuns, rounds, runChecks, storedFiles, submissions, venues, type AttachmentAnalysis } from "~db/schema";
-import { CheckInputError, checkPreparedRound, ClaimCheckError, policySchema, resolvePolicy, type SeriesStats } from "~/checker";
-import { parseCsvStreamTyped } from "~/checker/csv-stream";
+import { CheckInputError, checkPreparedRound, ClaimCheckError, policySchema, resolvePolicy, type SeriesStats, type StatedComparison } from "~/checker";
+import { readSeriesFile, SERIES_FORMATS, type SeriesFormat } from "~/checker/series-formats";
 import type { ClaimRecord, Columns, RunRecord } from "~/checker/schema";
 import type { Derived, Flag } from "~/checker/types";
 import { queueRecheck } from "~/jobs/check-queue.server";
@@ -42,12 +42,14 @@ export async function roundCheckState(db: Db, roundId: string) {
   return { checking: !!row && row.checkedSeq < row.changeSeq, checkedAt: row?.checkedAt ?? null };
 }
 
-type FileRow = { id: string; runVersionId: string; kind: "series" | "spectrum"; key: string; analysis: AttachmentAnalysis | null };
+type FileRow = { id: string; runVersionId: string; kind: "series" | "spectrum"; key: string; analysis: AttachmentAnalysis | null; format: string; sourceMap: string | null; size: number };
 
 /** Analyses a stored file again from object storage (first check after an upgrade, or a changed MSER batch). */
 async function analyseStored(db: Db, f: FileRow, batch: number): Promise<AttachmentAnalysis> {
   const body = await storage.getStream(f.key);
-  const cols = await parseCsvStreamTyped(body as unknown as AsyncIterable<Uint8Array>, f.kind);
+  const format = (SERIES_FORMATS as readonly string[]).includes(f.format) ? (f.format as SeriesFormat) : "csv";
+  // The stored file passed the upload limit on arrival; it is read up to the size recorded then.
+  const cols = await readSeriesFile(body as unknown as AsyncIterable<Uint8Array>, { kind: f.kind, format, map: f.sourceMap, limitBytes: f.size });
   const { analysis, plot } = analyseColumns(f.kind, cols, batch);
   await db.update(attachments).set({ analysis, plot }).where(eq(attachments.id, f.id));
   return analysis;
@@ -120,7 +122,7 @@ export async function recheckRound(db: Database, roundId: string) {
   const versionIds = runRows.map((r) => r.versionId);
   const files: FileRow[] = versionIds.length
     ? await db
-        .select({ id: attachments.id, runVersionId: attachments.runVersionId, kind: attachments.kind, key: storedFiles.key, analysis: attachments.analysis })
+        .select({ id: attachments.id, runVersionId: attachments.runVersionId, kind: attachments.kind, key: storedFiles.key, analysis: attachments.analysis, format: attachments.format, sourceMap: attachments.sourceMap, size: storedFiles.size })
         .from(attachments)
         .innerJoin(storedFiles, eq(storedFiles.id, attachments.fileId))
         .where(and(inArray(attachments.runVersionId, versionIds), eq(attachments.active, true)))
@@ -162,18 +164,21 @@ export async function recheckRound(db: Database, roundId: string) {
   const claimRows = await db.select({ id: claims.id, lineage: claims.lineage, figure: claims.figure, record: claims.record, version: claims.version, checkedKey: claims.checkedKey }).from(claims).where(eq(claims.roundId, roundId));
   const claimKey = (c: (typeof claimRows)[number]) => {
     const named = ((c.record as ClaimRecord).runs ?? []).map((r) => r.label);
-    return digest(policyKey, c.id, c.version, named.map((l) => runKey.get(l) ?? `missing:${l}`));
+    // "stated-results" once: claims checked before their stated results were stored are checked again.
+    return digest(policyKey, c.id, c.version, named.map((l) => runKey.get(l) ?? `missing:${l}`), "stated-results");
   };
   const changedClaims = claimRows.filter((c) => c.checkedKey !== claimKey(c));
 
   let runResults: { label: string; derived: Derived; flags: Flag[] }[] = [];
   let claimFlags: Flag[][] = [];
+  let claimComparisons: StatedComparison[][] = [];
   if (changedRuns.length || changedClaims.length) {
     try {
       // Contexts of every run are cheap (no series is read); flags are kept only for what changed.
       const out = checkPreparedRound({ runs: runRows.map((r) => r.record as RunRecord), policy: policyInput, seriesStats, spectra, claims: changedClaims.map((c) => c.record as ClaimRecord) });
       runResults = out.runs;
       claimFlags = out.claimFlags;
+      claimComparisons = out.claimComparisons;
     } catch (e) {
       // Records were validated when stored; a stricter checker may refuse one later: the round says why.
       return failed(e, changedClaims.map(claimName));
@@ -224,7 +229,9 @@ export async function recheckRound(db: Database, roundId: string) {
       for (const f of claimFlags[i] ?? []) toRow(f, c.id, c.lineage, null);
     });
     for (let i = 0; i < rows.length; i += 500) await tx.insert(flags).values(rows.slice(i, i + 500));
-    for (const c of changedClaims) await tx.update(claims).set({ checkedKey: claimKey(c) }).where(eq(claims.id, c.id));
+    for (const [i, c] of changedClaims.entries()) {
+      await tx.update(claims).set({ checkedKey: claimKey(c), statedResults: claimComparisons[i] ?? [] }).where(eq(claims.id, c.id));
+    }
     await tx
       .update(rounds)
       .set({ checkedSeq: sql`greatest(${rounds.checkedSeq}, ${round.changeSeq})`, checkedAt: new Date(), checkError: null })

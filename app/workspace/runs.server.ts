@@ -4,7 +4,7 @@ import { runSchema, type RunRecord } from "~/checker/schema";
 import { zodIssues } from "./zod-issues";
 import { InvalidInput, StateConflict, type Tx } from "./types";
 
-export type RunOrigin = "form" | "json" | "namelist" | "api" | "seed";
+export type RunOrigin = "form" | "json" | "namelist" | "api" | "seed" | "copy";
 
 /** Validates a candidate run record; throws InvalidInput with the JSON path of each problem. */
 export function parseRunRecord(input: unknown): RunRecord {

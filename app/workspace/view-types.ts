@@ -4,6 +4,9 @@ export type FlagView = {
   id: string;
   rule: string;
   ruleTitle: string;
+  /** the rule's family letter (A–K) and its title, for filtering by family */
+  family: string;
+  familyTitle: string;
   explanation: string;
   severity: "mismatch" | "caution" | "note";
   runLabel: string | null;

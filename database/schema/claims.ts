@@ -1,4 +1,5 @@
 import { index, integer, jsonb, pgTable, text, timestamp, uuid } from "drizzle-orm/pg-core";
+import type { StatedComparison } from "../../app/checker/comparisons";
 import { rounds } from "./rounds";
 
 /**
@@ -21,6 +22,8 @@ export const claims = pgTable(
     version: integer("version").notNull().default(1),
     /** Digest of the inputs of this claim's stored flags (claim version, its runs' checks, policy). */
     checkedKey: text("checked_key"),
+    /** Each stated value beside what the check job compared it with (interval, value, outcome); null until checked. */
+    statedResults: jsonb("stated_results").$type<StatedComparison[]>(),
     updatedAt: timestamp("updated_at", { withTimezone: true }).notNull().defaultNow(),
   },
   (t) => [index("claims_round_idx").on(t.roundId)],

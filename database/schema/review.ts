@@ -1,4 +1,5 @@
-import { index, integer, jsonb, pgEnum, pgTable, primaryKey, text, timestamp, uniqueIndex, uuid } from "drizzle-orm/pg-core";
+import { sql } from "drizzle-orm";
+import { check, index, integer, jsonb, pgEnum, pgTable, primaryKey, text, timestamp, uniqueIndex, uuid } from "drizzle-orm/pg-core";
 import { user } from "./auth";
 import { flags } from "./flags";
 import { rounds } from "./rounds";
@@ -68,9 +69,19 @@ export const flagVerdicts = pgTable(
       .notNull()
       .references(() => flags.id, { onDelete: "cascade" }),
     verdict: flagVerdictEnum("verdict").notNull(),
+    /** Why the reviewer disputes the flag or what they ask the authors (required for both; at most 2,000 characters). */
+    reason: text("reason"),
+    /** The authors' answer, written in the next round once the decision is released. */
+    answer: text("answer"),
+    answeredBy: text("answered_by").references(() => user.id, { onDelete: "set null" }),
+    answeredAt: timestamp("answered_at", { withTimezone: true }),
     updatedAt: timestamp("updated_at", { withTimezone: true }).notNull().defaultNow(),
   },
-  (t) => [primaryKey({ columns: [t.reviewId, t.flagId] })],
+  (t) => [
+    primaryKey({ columns: [t.reviewId, t.flagId] }),
+    check("flag_verdicts_reason_len", sql`${t.reason} is null or char_length(${t.reason}) <= 2000`),
+    check("flag_verdicts_answer_len", sql`${t.answer} is null or char_length(${t.answer}) <= 20000`),
+  ],
 );
 
 /** A reviewer's rich-text comment (Tiptap JSON), anchored to the round, a claim, a run or a flag. */

@@ -97,6 +97,9 @@ export const attachments = pgTable(
     /** A downsampled copy for plots (at most a few thousand points), made with the analysis. */
     plot: jsonb("plot").$type<AttachmentPlot>(),
     active: boolean("active").notNull().default(true),
+    /** The file's format (csv, columns, hdf5, netcdf) and, for the last three, the map that named its columns. */
+    format: text("format").notNull().default("csv"),
+    sourceMap: text("source_map"),
     createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),
   },
   (t) => [index("attachments_version_idx").on(t.runVersionId)],
@@ -108,6 +111,18 @@ export const namelistMaps = pgTable("namelist_maps", {
     .primaryKey()
     .references(() => submissions.id, { onDelete: "cascade" }),
   map: jsonb("map").$type<Record<string, string>>().notNull(),
+  updatedAt: timestamp("updated_at", { withTimezone: true }).notNull().defaultNow(),
+});
+
+/**
+ * The author's column maps (whitespace-separated column files) and dataset maps (HDF5, NetCDF),
+ * kept per submission like the namelist key map: `series.columns`, `spectrum.hdf5`, … → the map.
+ */
+export const seriesFileMaps = pgTable("series_file_maps", {
+  submissionId: uuid("submission_id")
+    .primaryKey()
+    .references(() => submissions.id, { onDelete: "cascade" }),
+  maps: jsonb("maps").$type<Record<string, string>>().notNull(),
   updatedAt: timestamp("updated_at", { withTimezone: true }).notNull().defaultNow(),
 });
 

@@ -35,7 +35,7 @@ export async function makeDecidedRound(db: Database, title: string, blinding: "s
     const userId = await idOf(key);
     await respondToInvitation(db, { token, answer: "accept", userId });
     const [review] = await db.select().from(reviews).where(and(eq(reviews.roundId, fx.roundId), eq(reviews.reviewerId, userId)));
-    await setVerdict(db, review!, flag!.id, key === "reviewer1" ? "agree" : "ask-authors");
+    await setVerdict(db, review!, flag!.id, key === "reviewer1" ? "agree" : "ask-authors", key === "reviewer1" ? null : "Which diffusivity did you use for this run?");
     await saveRemark(db, review!, { anchorKind: "round", body: doc(`${key} remark on the round as a whole.`) });
     await saveRemark(db, review!, { anchorKind: "flag", anchorRef: flag!.id, body: doc(`${key} remark on the first flag.`) });
     await saveReportMeta(db, review!, { recommendation: "major-revision", editorNote: doc(`SECRET-NOTE-${key} for the editor only.`) });

@@ -7,7 +7,7 @@ import autocannon from "autocannon";
 
 export const STATS_FILE = "/tmp/runproof-bench-loop.json";
 
-export type Loop = { p99Ms: number; maxMs: number; peakRssMb: number };
+export type Loop = { p99Ms: number; maxMs: number; peakRssMb: number; cpuMs: number };
 
 /** Event-loop delay p99 and peak RSS of the server since the last call (see loop-monitor.mjs). */
 export async function loopStats(server: ChildProcess): Promise<Loop> {
@@ -19,7 +19,7 @@ export async function loopStats(server: ChildProcess): Promise<Loop> {
 
 export async function load(url: string, opts: { cookie?: string; connections: number; seconds: number }) {
   const out = await autocannon({ url, connections: opts.connections, duration: opts.seconds, headers: opts.cookie ? { cookie: opts.cookie } : {} });
-  return { rps: out.requests.average, p50: out.latency.p50, p99: out.latency.p99, ok: out["2xx"], other: out.non2xx + out.errors + out.timeouts };
+  return { rps: out.requests.average, p50: out.latency.p50, p99: out.latency.p99, ok: out["2xx"], other: out.non2xx + out.errors + out.timeouts, total: out.requests.total };
 }
 
 export async function jsGzip(base: string, path: string, cookie?: string) {

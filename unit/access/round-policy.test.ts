@@ -27,11 +27,14 @@ const TABLE: Record<Action, Record<Relation, string>> = {
   "write-claims": { author: "x....", "co-author": "x....", editor: ".....", reviewer: ".....", invited: ".....", admin: ".....", none: "....." },
   "answer-flags": { author: "x....", "co-author": "x....", editor: ".....", reviewer: ".....", invited: ".....", admin: ".....", none: "....." },
   "send-round": { author: "x....", "co-author": ".....", editor: ".....", reviewer: ".....", invited: ".....", admin: ".....", none: "....." },
+  "delete-draft": { author: "x....", "co-author": ".....", editor: ".....", reviewer: ".....", invited: ".....", admin: ".....", none: "....." },
   "answer-remarks": { author: "...x.", "co-author": "...x.", editor: ".....", reviewer: ".....", invited: ".....", admin: ".....", none: "....." },
   "respond-invitation": { author: ".....", "co-author": ".....", editor: ".....", reviewer: ".....", invited: ".xx..", admin: ".....", none: "....." },
   "review": { author: ".....", "co-author": ".....", editor: ".....", reviewer: ".xx..", invited: ".....", admin: ".....", none: "....." },
   "invite": { author: ".....", "co-author": ".....", editor: ".xx..", reviewer: ".....", invited: ".....", admin: ".....", none: "....." },
   "decide": { author: ".....", "co-author": ".....", editor: ".xx..", reviewer: ".....", invited: ".....", admin: ".....", none: "....." },
+  // The authors' digest, sent now by the venue's editors or the instance admin; never on a draft or a withdrawn submission.
+  "send-digest": { author: ".....", "co-author": ".....", editor: ".xxx.", reviewer: ".....", invited: ".....", admin: ".xxx.", none: "....." },
 };
 
 describe("access policy", () => {

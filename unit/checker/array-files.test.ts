@@ -8,7 +8,8 @@
  */
 import h5wasm from "h5wasm";
 import { describe, expect, it } from "vitest";
-import { parseDatasetMap, readHdf5Columns, readNetcdfColumns } from "../../app/checker/array-files.ts";
+import { NetCDFReader } from "netcdfjs";
+import { parseDatasetMap, readHdf5Columns, readNetcdfColumns, readNetcdfTyped } from "../../app/checker/array-files.ts";
 import { check } from "../../app/checker/index.ts";
 import { baseRun } from "./helpers.ts";
 import { netcdf } from "./netcdf-writer.ts";
@@ -64,6 +65,17 @@ describe("NetCDF series (classic and 64-bit offset files written from the format
     const bytes = netcdf({ t, Re: re, rm }, version);
     const cols = await readNetcdfColumns(bytes, parseDatasetMap("t,Re,Rm:rm"), "series");
     expect(cols).toEqual({ t, Re: re, Rm: rm });
+  });
+  it.each([1, 2] as const)("reads CDF-%i double variables bit for bit as netcdfjs's own reader does", async (version) => {
+    // Reference: netcdfjs's getDataVariable, value by value; ours reads the contiguous block at `begin`.
+    const noisy = t.map((x) => Math.exp(x) * 1e-7 + Math.PI);
+    const bytes = netcdf({ t, Re: noisy }, version);
+    const reference = new NetCDFReader(bytes.buffer.slice(bytes.byteOffset, bytes.byteOffset + bytes.byteLength) as ArrayBuffer);
+    const cols = await readNetcdfTyped(bytes, parseDatasetMap("t,Re"), "series");
+    expect(Array.from(cols.Re!)).toEqual(reference.getDataVariable("Re"));
+    expect(Array.from(cols.t!)).toEqual(reference.getDataVariable("t"));
+    // A file cut short inside the data is refused, saying so.
+    await expect(readNetcdfTyped(bytes.slice(0, bytes.length - 16), parseDatasetMap("t,Re"), "series")).rejects.toThrow(/cut off|not NetCDF/);
   });
   it("errors name the variable and the fix", async () => {
     const bytes = netcdf({ t, Re: re });

@@ -4,24 +4,34 @@ import { RichTextEditor } from "./rich-text-editor";
 
 export type AnchorOption = { value: string; label: string };
 
-/** A new remark: choose what it is about, write it, save; the editor clears after a save. */
+/**
+ * A remark: anchored to what it sits beside (`fixedAnchor`), or to a choice among `anchors`;
+ * write it, save; the editor clears after a save.
+ */
 export function RemarkForm({
-  anchors,
+  anchors = [],
+  fixedAnchor,
   locked,
   defaultAnchor = "round:",
   remark,
   onDone,
+  editorId,
 }: {
-  anchors: AnchorOption[];
+  anchors?: AnchorOption[];
+  /** The claim, run, flag or round the remark is about, already chosen by where it was opened. */
+  fixedAnchor?: AnchorOption;
   locked: boolean;
   defaultAnchor?: string;
+  /** Distinguishes several composers on one page. */
+  editorId?: string;
   /** When given, the form edits this remark instead of adding one. */
   remark?: { id: string; body: unknown };
   onDone?: () => void;
 }) {
   const fetcher = useFetcher<{ ok: boolean; error?: string }>();
   const [generation, setGeneration] = useState(0);
-  const [anchor, setAnchor] = useState(defaultAnchor);
+  const [chosen, setAnchor] = useState(defaultAnchor);
+  const anchor = fixedAnchor?.value ?? chosen;
   useEffect(() => {
     if (fetcher.state === "idle" && fetcher.data?.ok) {
       setGeneration((g) => g + 1);
@@ -36,20 +46,32 @@ export function RemarkForm({
       {remark ? <input type="hidden" name="remarkId" value={remark.id} /> : null}
       <input type="hidden" name="anchorKind" value={kind} />
       <input type="hidden" name="anchorRef" value={ref ?? ""} />
-      <label className="flex flex-col gap-1 text-caption">
-        <span className="font-semibold">The remark is about</span>
-        <select className="field-input" value={anchor} onChange={(e) => setAnchor(e.target.value)} name="anchor">
-          {anchors.map((a) => (
-            <option key={a.value} value={a.value}>{a.label}</option>
-          ))}
-        </select>
-      </label>
-      <RichTextEditor key={generation} id={remark ? `remark-${remark.id}` : "remark"} name="body" label="Remark (released to the authors with the decision)" initial={remark?.body} />
+      {fixedAnchor ? (
+        <p className="text-caption" data-testid="remark-anchor">
+          Remark on <strong>{fixedAnchor.label}</strong>
+        </p>
+      ) : (
+        <label className="flex flex-col gap-1 text-caption">
+          <span className="font-semibold">The remark is about</span>
+          <select className="field-input" value={anchor} onChange={(e) => setAnchor(e.target.value)} name="anchor">
+            {anchors.map((a) => (
+              <option key={a.value} value={a.value}>{a.label}</option>
+            ))}
+          </select>
+        </label>
+      )}
+      <RichTextEditor
+        key={generation}
+        id={editorId ?? (remark ? `remark-${remark.id}` : "remark")}
+        name="body"
+        label="Remark (released to the authors with the decision; $…$ is typeset as TeX)"
+        initial={remark?.body}
+      />
       <div className="flex gap-2">
         <button type="submit" className="btn self-start" disabled={fetcher.state !== "idle"}>
           {remark ? "Save changes" : "Save remark"}
         </button>
-        {remark && onDone ? (
+        {onDone ? (
           <button type="button" className="btn-quiet" onClick={onDone}>
             Cancel
           </button>

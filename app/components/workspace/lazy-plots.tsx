@@ -8,6 +8,7 @@ import { lazy, Suspense, useEffect, useState, type ComponentType } from "react";
 const charts = () => import("./plots");
 const SeriesChartImpl = lazy(() => charts().then((m) => ({ default: m.SeriesChart })));
 const SpectrumChartImpl = lazy(() => charts().then((m) => ({ default: m.SpectrumChart })));
+const ComparisonChartImpl = lazy(() => charts().then((m) => ({ default: m.ComparisonChart })));
 const ParameterSpaceChartImpl = lazy(() => charts().then((m) => ({ default: m.ParameterSpaceChart })));
 
 function Placeholder({ label }: { label: string }) {
@@ -34,3 +35,4 @@ function afterPaint<P extends object>(Impl: ComponentType<P>, label: string) {
 export const SeriesChart = afterPaint(SeriesChartImpl, "time-series chart");
 export const SpectrumChart = afterPaint(SpectrumChartImpl, "spectrum chart");
 export const ParameterSpaceChart = afterPaint(ParameterSpaceChartImpl, "parameter-space chart");
+export const ComparisonChart = afterPaint(ComparisonChartImpl, "comparison chart");

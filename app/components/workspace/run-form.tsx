@@ -55,7 +55,10 @@ export function RunForm({
   lockLabel,
   extra,
   idPrefix = "run",
+  multipart,
 }: {
+  /** Sends files chosen in `extra` too (multipart/form-data). */
+  multipart?: boolean;
   idPrefix?: string;
   values?: Record<string, string>;
   issues?: Issue[];
@@ -70,7 +73,7 @@ export function RunForm({
   const known = new Set(RUN_SECTIONS.flatMap((s) => s.fields.map((f) => f.path)));
   const loose = issues.filter((i) => !i.path.split(", ").some((p) => known.has(p)));
   return (
-    <Form method="post" className="flex flex-col gap-4" data-testid={`run-form-${intent}`}>
+    <Form method="post" encType={multipart ? "multipart/form-data" : undefined} className="flex flex-col gap-4" data-testid={`run-form-${intent}`}>
       <input type="hidden" name="intent" value={intent} />
       {extra}
       {message ? (

@@ -1,3 +1,4 @@
+import { Fragment, type ReactNode } from "react";
 import { Link } from "react-router";
 import type { RunRow } from "~/workspace/view-types";
 import { useRunsPage } from "./use-runs-page";
@@ -16,6 +17,9 @@ const COLUMNS: { key: Exclude<keyof RunRow, "checking" | "updatedAt">; label: st
   { key: "note", label: "Notes", numeric: true },
 ];
 
+/** The element id of a run's row, for links such as a remark's anchor. */
+export const runAnchorId = (label: string) => `run-${label.replace(/[^A-Za-z0-9_-]/g, "_")}`;
+
 export function formatNumber(v: unknown): string {
   if (typeof v !== "number") return v === null || v === undefined ? "—" : String(v);
   if (v === 0 || (Math.abs(v) >= 0.01 && Math.abs(v) < 1e4)) return String(Number(v.toPrecision(4)));
@@ -23,7 +27,25 @@ export function formatNumber(v: unknown): string {
 }
 
 /** One row per run with key controls, derived numbers and flag counts; sorted by any column. */
-export function RunsTable({ rows, total, runHref, csvHref, source }: { rows: RunRow[]; total?: number; runHref: (row: RunRow) => string; csvHref?: string; source?: string }) {
+export function RunsTable({
+  rows,
+  total,
+  runHref,
+  csvHref,
+  source,
+  rowAction,
+  rowDetail,
+}: {
+  rows: RunRow[];
+  total?: number;
+  runHref: (row: RunRow) => string;
+  csvHref?: string;
+  source?: string;
+  /** An extra last cell per run (e.g. the reviewer's "Remark" button). */
+  rowAction?: (row: RunRow) => ReactNode;
+  /** A full-width row under a run (e.g. a remark composer opened beside it), or null. */
+  rowDetail?: (row: RunRow) => ReactNode | null;
+}) {
   // With `source`, sorting and paging go through a fetcher against the round's API route; `rows`
   // is then the first page (by label) of `total` runs.
   const { rows: sorted, sort, setSort, page, pages, setPage, pending } = useRunsPage(rows, source, total);
@@ -42,25 +64,43 @@ export function RunsTable({ rows, total, runHref, csvHref, source }: { rows: Run
                   </button>
                 </th>
               ))}
+              {rowAction ? (
+                <th scope="col" className="py-1">
+                  <span className="sr-only">Actions</span>
+                </th>
+              ) : null}
             </tr>
           </thead>
           <tbody>
-            {sorted.map((r) => (
-              <tr key={r.runId} className="border-b border-rule">
-                {COLUMNS.map((c) =>
-                  c.key === "label" ? (
-                    <th key={c.key} scope="row" className="py-1 pr-3">
-                      <Link to={runHref(r)}>{r.label}</Link>
-                      {r.checking ? <span className="ml-1 font-normal text-basalt-soft">(checking…)</span> : null}
-                    </th>
-                  ) : (
-                    <td key={c.key} className={`py-1 pr-3 ${c.key === "mismatch" && r.mismatch ? "font-semibold text-ember" : ""}`}>
-                      {formatNumber(r[c.key])}
-                    </td>
-                  ),
-                )}
-              </tr>
-            ))}
+            {sorted.map((r) => {
+              const detail = rowDetail?.(r) ?? null;
+              return (
+                <Fragment key={r.runId}>
+                  <tr id={runAnchorId(r.label)} className="border-b border-rule">
+                    {COLUMNS.map((c) =>
+                      c.key === "label" ? (
+                        <th key={c.key} scope="row" className="whitespace-nowrap py-1 pr-3">
+                          <Link to={runHref(r)}>{r.label}</Link>
+                          {r.checking ? <span className="ml-1 font-normal text-basalt-soft">(checking…)</span> : null}
+                        </th>
+                      ) : (
+                        <td key={c.key} className={`py-1 pr-3 ${c.key === "mismatch" && r.mismatch ? "font-semibold text-ember" : ""}`}>
+                          {formatNumber(r[c.key])}
+                        </td>
+                      ),
+                    )}
+                    {rowAction ? <td className="py-1">{rowAction(r)}</td> : null}
+                  </tr>
+                  {detail ? (
+                    <tr className="border-b border-rule">
+                      <td colSpan={COLUMNS.length + (rowAction ? 1 : 0)} className="py-2">
+                        {detail}
+                      </td>
+                    </tr>
+                  ) : null}
+                </Fragment>
+              );
+            })}
           </tbody>
         </table>
       </div>

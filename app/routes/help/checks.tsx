@@ -1,6 +1,7 @@
 import { FAMILIES, rules } from "~/checker/registry";
 import { workedExampleResults } from "~/checker/worked-examples";
 import { AdvisoryNote } from "~/components/advisory-note";
+import { href } from "react-router";
 import type { Route } from "./+types/checks";
 
 export const meta: Route.MetaFunction = () => [{ title: "Checks reference · Runproof" }];
@@ -44,6 +45,24 @@ export default function ChecksReference({ loaderData }: Route.ComponentProps) {
         venue may set its own) and where the method comes from. The same engine runs in the app, behind{" "}
         <code className="font-mono">POST /api/v1/check</code> and in <code className="font-mono">npm run check</code>.
       </p>
+      <section className="card mt-4 max-w-3xl" aria-labelledby="cli-h" data-testid="cli-download">
+        <h2 id="cli-h" className="text-lead">
+          Check on your own machine
+        </h2>
+        <p className="mt-1">
+          <a href={href("/help/downloads/runproof-check.mjs")} download>
+            Download the command-line checker
+          </a>{" "}
+          (<code className="font-mono">runproof-check.mjs</code>, one file for Node 20 or newer, nothing to install). It prints the same JSON as the
+          API:
+        </p>
+        <pre className="mt-2 overflow-auto rounded border border-rule p-2 font-mono text-caption">
+          {`node runproof-check.mjs --claim claim.json --series strat-B=series.csv run-a.json run-b.json
+node runproof-check.mjs --series strat-B=ts.dat --columns strat-B=t,kineticEnergy,-,Rm strat-B.json
+node runproof-check.mjs --series strat-B=out.h5 --columns strat-B=t:time,Rm:diag/rm strat-B.json`}
+        </pre>
+        <p className="mt-1 text-caption">Exit status 0 when the input was valid (whatever it flags), 2 with a message when it was not; --help lists every option.</p>
+      </section>
       <AdvisoryNote className="mt-4 max-w-3xl" />
       {loaderData.families.map((f) => (
         <section key={f.family} className="mt-8" aria-labelledby={`family-${f.family}`}>

@@ -4,6 +4,7 @@ import { RichText } from "~/components/review/rich-text";
 import { requireRound } from "~/access/page-guards.server";
 import { roundChanges } from "~/review/changes.server";
 import type { Route } from "./+types/changes";
+import { verdictLabel } from "~/review/labels";
 
 export const meta: Route.MetaFunction = () => [{ title: "Changes between rounds · Runproof" }];
 
@@ -74,6 +75,25 @@ export default function Changes({ loaderData: d }: Route.ComponentProps) {
             </li>
           ))}
           {d.removed.map((l) => <li key={l}>{l}: removed in this round</li>)}
+        </ul>
+      </section>
+      <section className="card mt-4" aria-labelledby="vr-h">
+        <h2 id="vr-h" className="text-lead">Verdicts on flags in round {d.previousNumber} and the authors' answers</h2>
+        {d.verdicts.length === 0 ? <p className="text-caption text-basalt-soft">No reviewer gave a verdict on a flag.</p> : null}
+        <ul className="mt-2 flex flex-col gap-3" data-testid="verdict-changes">
+          {d.verdicts.map((f) => (
+            <li key={f.flagId} className="border-l-2 border-rule pl-2">
+              <p className="text-caption"><span className="font-mono">{f.rule}</span>{f.runLabel ? ` · run ${f.runLabel}` : ""}: {f.message}</p>
+              <ul className="mt-1 flex flex-col gap-1">
+                {f.verdicts.map((v) => (
+                  <li key={v.number} className="text-caption">
+                    <strong>{v.reviewer}</strong> {verdictLabel(v.verdict).toLowerCase()}{v.reason ? `: ${v.reason}` : "."}
+                    {v.verdict !== "agree" ? <><br /><strong>Answer:</strong> {v.answer ?? "not answered"}</> : null}
+                  </li>
+                ))}
+              </ul>
+            </li>
+          ))}
         </ul>
       </section>
       <section className="card mt-4" aria-labelledby="rr-h">

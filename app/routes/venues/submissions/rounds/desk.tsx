@@ -1,5 +1,8 @@
 import { parseWithZod } from "@conform-to/zod/v4";
-import { data, Form, href, Link, useNavigation } from "react-router";
+import { useCallback, useMemo } from "react";
+import { data, Form, href, Link, useNavigation, type ShouldRevalidateFunctionArgs } from "react-router";
+import { FlagsTable } from "~/components/review/flags-table";
+import { onlyFlagQueryChanged } from "~/review/flag-table";
 import { requireRound } from "~/access/page-guards.server";
 import { AdvisoryNote } from "~/components/advisory-note";
 import { RichText } from "~/components/review/rich-text";
@@ -11,13 +14,15 @@ import { decisionSchema, inviteSchema, RECOMMENDATIONS, reinviteSchema } from "~
 import { conflictCheck, inviteReviewer, reinvitePrevious, resendInvitation, withdrawInvitation } from "~/review/invitations.server";
 import { isId } from "~/access/relation.server";
 import type { Route } from "./+types/desk";
+import { digestRecipients } from "~/review/digest.server";
+import { DigestNow } from "~/components/review/digest-now";
 import { auditEntryLabel, decisionLabel, invitationStateLabel, recommendationLabel, reviewStateLabel, roundStateLabel, verdictLabel } from "~/review/labels";
 
 export const meta: Route.MetaFunction = ({ data: d }) => [{ title: `Round ${d?.round.number ?? ""} · Editor's desk · Runproof` }];
 
 export async function loader(args: Route.LoaderArgs) {
   const { db, access: ctx } = await requireRound(args, "read-reports");
-  const view = await editorialView(db, ctx);
+  const view = await editorialView(db, ctx, { showReviewerNames: ctx.can("read-reviewer-identities") });
   const { round } = ctx;
   return {
     venue: ctx.venue,
@@ -26,6 +31,7 @@ export async function loader(args: Route.LoaderArgs) {
     ...view,
     canInvite: ctx.can("invite"),
     canDecide: ctx.can("decide"),
+    digestRecipients: ctx.can("send-digest") ? await digestRecipients(db, ctx.submission.id) : null,
   };
 }
 
@@ -79,6 +85,12 @@ export async function action(args: Route.ActionArgs) {
   }
 }
 
+/** Changing the flags' grouping or filters re-reads nothing. */
+export function shouldRevalidate({ formData, currentUrl, nextUrl, defaultShouldRevalidate }: ShouldRevalidateFunctionArgs) {
+  if (!formData && onlyFlagQueryChanged(currentUrl, nextUrl)) return false;
+  return defaultShouldRevalidate;
+}
+
 function Notice({ result, form }: { result?: ActionResult; form: string }) {
   if (!result || result.form !== form) return null;
   if (result.ok) return <p role="status" className="rounded bg-lichen-wash p-2">{result.message}</p>;
@@ -91,6 +103,12 @@ export default function EditorialRound({ loaderData: d, actionData }: Route.Comp
   const open = d.canInvite;
   const p = { venueId: d.venue.id, submissionId: d.submission.id, round: String(d.round.number) };
   const defaultDue = new Date(Date.now() + 21 * 86_400_000).toISOString().slice(0, 10);
+  const mode = useMemo(() => ({ kind: "editor" as const, verdicts: d.flagVerdicts }), [d.flagVerdicts]);
+  const runs = d.runs;
+  const runHref = useCallback((label: string) => {
+    const run = runs.find((r) => r.label === label);
+    return run ? href("/venues/:venueId/submissions/:submissionId/rounds/:round/runs/:runId", { ...p, runId: run.runId }) : href("/venues/:venueId/submissions/:submissionId/rounds/:round/runs", p);
+  }, [runs, p.venueId, p.submissionId, p.round]); // eslint-disable-line react-hooks/exhaustive-deps
   return (
     <div>
       <p className="text-caption">
@@ -190,7 +208,11 @@ export default function EditorialRound({ loaderData: d, actionData }: Route.Comp
                 <RichText html={r.editorNote} />
               </div>
             ) : null}
-            {r.verdicts.length ? <p className="mt-2 text-caption">Flags: {r.verdicts.map((v) => `${v.flag}: ${verdictLabel(v.verdict)}`).join("; ")}</p> : null}
+            {r.verdicts.length ? (
+              <p className="mt-2 text-caption">
+                Verdicts on {r.verdicts.length} {r.verdicts.length === 1 ? "flag" : "flags"}: agrees with {r.verdicts.filter((x) => x.verdict === "agree").length}, disputes {r.verdicts.filter((x) => x.verdict === "dispute").length}, asks the authors about {r.verdicts.filter((x) => x.verdict === "ask-authors").length} (each with its reason in the flags table below).
+              </p>
+            ) : null}
             <ul className="mt-2 flex flex-col gap-2">
               {r.remarks.map((m) => (
                 <li key={m.id} className="border-l-2 border-rule pl-2">
@@ -201,6 +223,10 @@ export default function EditorialRound({ loaderData: d, actionData }: Route.Comp
             </ul>
           </article>
         ))}
+      </section>
+
+      <section className="card mt-6" id="flags">
+        <FlagsTable flags={d.flags} mode={mode} runHref={runHref} title="Flags and the reviewers' verdicts" />
       </section>
 
       <section className="card mt-6" aria-labelledby="dec-h">
@@ -233,6 +259,8 @@ export default function EditorialRound({ loaderData: d, actionData }: Route.Comp
           </>
         )}
       </section>
+
+      {d.digestRecipients ? <DigestNow params={p} recipients={d.digestRecipients} /> : null}
 
       <section className="card mt-6" aria-labelledby="audit-h">
         <h2 id="audit-h" className="text-lead">Audit log</h2>

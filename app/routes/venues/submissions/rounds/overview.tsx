@@ -8,6 +8,7 @@ import { roundFlags } from "~/workspace/flags-query.server";
 import { roundRunPoints } from "~/workspace/round-data.server";
 import { fieldId, fieldForQuantity } from "~/workspace/run-form-fields";
 import { sendRound } from "~/workspace/send.server";
+import { deleteDraftSubmission, draftSubmissionContents } from "~/workspace/removals.server";
 import type { Route } from "./+types/overview";
 
 export const meta: Route.MetaFunction = () => [{ title: "Round overview · Runproof" }];
@@ -30,13 +31,24 @@ export async function loader(args: Route.LoaderArgs) {
     canAnswer: access.can("answer-flags"),
     canSend: access.can("send-round"),
     showSendPanel: access.can("write-runs"),
+    // Only a submission that was never sent can be deleted (round 1 still a draft).
+    deletable: access.can("delete-draft") && round.number === 1 ? await draftSubmissionContents(db, access.submission.id) : null,
     initial,
   };
 }
 
 export async function action(args: Route.ActionArgs) {
-  const { db, access, user } = await requireRound(args, "send-round");
   const form = await args.request.formData();
+  if (form.get("intent") === "delete-draft") {
+    const { db, access } = await requireRound(args, "delete-draft");
+    try {
+      await deleteDraftSubmission(db, access.submission.id);
+    } catch (e) {
+      return serviceError(e);
+    }
+    throw redirect(`${href("/dashboard")}?deleted=1`);
+  }
+  const { db, access, user } = await requireRound(args, "send-round");
   try {
     await sendRound(db, { roundId: access.round.id, userId: user.id, expectedVersion: Number(form.get("version")) });
   } catch (e) {
@@ -97,6 +109,22 @@ export default function RoundOverview({ loaderData: d, actionData, params }: Rou
             ) : (
               <p className="mt-2 text-caption">The corresponding author sends the round.</p>
             )}
+            {d.deletable?.neverSent ? (
+              <Form
+                method="post"
+                className="mt-4 border-t border-rule pt-3"
+                onSubmit={(e) => {
+                  const c = d.deletable!;
+                  const what = `its ${c.runs} run${c.runs === 1 ? "" : "s"}, ${c.claims} claim${c.claims === 1 ? "" : "s"}, their flags and attached files, the manuscript file and the list of co-authors`;
+                  if (!window.confirm(`Delete this draft submission for good? This removes ${what}. It was never sent, so nobody else has seen it.`)) e.preventDefault();
+                }}
+              >
+                <input type="hidden" name="intent" value="delete-draft" />
+                <button type="submit" className="btn-quiet btn">
+                  Delete this draft submission
+                </button>
+              </Form>
+            ) : null}
           </section>
         ) : (
           <p className="card text-caption" data-testid="sent-note">

@@ -1,16 +1,16 @@
 import { parseWithZod } from "@conform-to/zod/v4";
-import { useCallback, useState } from "react";
-import { data, Form, href, redirect, useFetcher } from "react-router";
+import { useCallback, useMemo, useState } from "react";
+import { data, Form, href, redirect, useFetcher, type ShouldRevalidateFunctionArgs } from "react-router";
 import { notFound, requireRound } from "~/access/page-guards.server";
 import { isId } from "~/access/relation.server";
-import { AdvisoryNote } from "~/components/advisory-note";
-import { FlagItem } from "~/components/review/flag-item";
-import { RemarkForm, type AnchorOption } from "~/components/review/remark-form";
+import { FlagsTable, REVEAL_FLAG_EVENT } from "~/components/review/flags-table";
+import { RemarkForm } from "~/components/review/remark-form";
 import { RichText } from "~/components/review/rich-text";
 import { RichTextEditor } from "~/components/review/rich-text-editor";
-import { VerdictButtons } from "~/components/review/verdict-buttons";
 import { SeriesChart, SpectrumChart } from "~/components/workspace/lazy-plots";
-import { RunsTable } from "~/components/workspace/runs-table";
+import { runAnchorId, RunsTable } from "~/components/workspace/runs-table";
+import type { FlagView } from "~/workspace/view-types";
+import { onlyFlagQueryChanged } from "~/review/flag-table";
 import { asActionError } from "~/workspace/action-errors.server";
 import { respondAsInvitee } from "~/review/invitations.server";
 import { RECOMMENDATIONS, remarkSchema, reportMetaSchema, verdictSchema } from "~/review/review-forms";
@@ -62,9 +62,9 @@ export async function action(args: Route.ActionArgs) {
   try {
     if (intent === "verdict") {
       const p = parseWithZod(form, { schema: verdictSchema });
-      if (p.status !== "success") return bad("Choose agree, dispute or ask the authors.");
-      await setVerdict(db, review, p.value.flagId, p.value.verdict);
-      return { ok: true as const };
+      if (p.status !== "success") return bad(Object.values(p.error ?? {}).flat()[0] ?? "Choose agree, dispute or ask the authors.");
+      const verdict = await setVerdict(db, review, p.value.flagId, p.value.verdict, p.value.reason);
+      return { ok: true as const, verdict };
     }
     if (intent === "remark") {
       const p = parseWithZod(form, { schema: remarkSchema });
@@ -90,6 +90,16 @@ export async function action(args: Route.ActionArgs) {
     const res = asActionError(error);
     return data({ ok: false as const, error: res.data.error }, res.init ?? undefined);
   }
+}
+
+/**
+ * A verdict answers with what was stored and the table keeps it, so the page does not reload its
+ * data after every key press; nor when only the flags' grouping or filters change in the URL.
+ */
+export function shouldRevalidate({ formData, actionResult, currentUrl, nextUrl, defaultShouldRevalidate }: ShouldRevalidateFunctionArgs) {
+  if (formData?.get("intent") === "verdict" && (actionResult as { ok?: boolean } | undefined)?.ok) return false;
+  if (!formData && onlyFlagQueryChanged(currentUrl, nextUrl)) return false;
+  return defaultShouldRevalidate;
 }
 
 type WorkspaceData = Extract<Route.ComponentProps["loaderData"], { invitation: null }>;
@@ -159,47 +169,187 @@ export default function ReviewPage({ loaderData, actionData, params }: Route.Com
   return <ReviewWorkspace d={loaderData} p={{ venueId: params.venueId, submissionId: params.submissionId, round: params.round }} />;
 }
 
-function ReviewWorkspace({ d, p }: { d: WorkspaceData; p: { venueId: string; submissionId: string; round: string } }) {
-  const locked = isLocked(d);
+type P = { venueId: string; submissionId: string; round: string };
+type MyRemark = WorkspaceData["remarks"][number];
+
+/** Where a remark's anchor sits on this page; a flag in a closed group is opened by the table. */
+function anchorTarget(m: { anchorKind: string; anchorRef: string | null }) {
+  if (m.anchorKind === "flag") return `#flag-${m.anchorRef}`;
+  if (m.anchorKind === "claim") return `#claim-${m.anchorRef}`;
+  if (m.anchorKind === "run") return `#${runAnchorId(m.anchorRef ?? "")}`;
+  return "#round-remark";
+}
+
+/** The reviewer's remarks in the order written, each linking to what it is about. */
+function RemarksList({ remarks, locked }: { remarks: MyRemark[]; locked: boolean }) {
   const [editing, setEditing] = useState<string | null>(null);
   const stopEditing = useCallback(() => setEditing(null), []);
-  const anchors: AnchorOption[] = [
-    { value: "round:", label: "The round as a whole" },
-    ...d.claims.map((c) => ({ value: `claim:${c.id}`, label: `Claim ${c.figure ?? ""} ${c.title}`.trim() })),
-    ...d.runRows.map((r) => ({ value: `run:${r.label}`, label: `Run ${r.label}` })),
-    ...d.flags.map((f) => ({ value: `flag:${f.id}`, label: `Flag ${f.rule}${f.runLabel ? ` on ${f.runLabel}` : ""}: ${f.message.slice(0, 60)}` })),
-  ];
+  return (
+    <ol className="mt-2 flex flex-col gap-3" data-testid="my-remarks">
+      {remarks.length === 0 ? <li className="text-caption text-basalt-soft">No remarks yet: use "Remark" beside a claim, a run or a flag.</li> : null}
+      {remarks.map((m, i) =>
+        editing === m.id ? (
+          <li key={m.id} className="border-l-2 border-lichen pl-2">
+            <RemarkForm fixedAnchor={{ value: `${m.anchorKind}:${m.anchorRef ?? ""}`, label: m.anchor }} locked={locked} remark={{ id: m.id, body: m.body }} onDone={stopEditing} />
+          </li>
+        ) : (
+          <li key={m.id} className="border-l-2 border-rule pl-2" data-testid="my-remark">
+            <p className="text-caption text-basalt-soft">
+              {i + 1}. On{" "}
+              <a
+                className="underline"
+                href={anchorTarget(m)}
+                onClick={() => {
+                  if (m.anchorKind === "flag" && m.anchorRef) window.dispatchEvent(new CustomEvent(REVEAL_FLAG_EVENT, { detail: m.anchorRef }));
+                }}
+              >
+                {m.anchor}
+              </a>
+            </p>
+            <RichText html={m.html} />
+            {locked ? null : (
+              <div className="flex gap-3">
+                <button className="text-caption underline" type="button" onClick={() => setEditing(m.id)}>
+                  Edit
+                </button>
+                <Form method="post" navigate={false}>
+                  <input type="hidden" name="intent" value="delete-remark" />
+                  <input type="hidden" name="remarkId" value={m.id} />
+                  <button className="text-caption underline" type="submit">
+                    Delete
+                  </button>
+                </Form>
+              </div>
+            )}
+          </li>
+        ),
+      )}
+    </ol>
+  );
+}
+
+function ReviewWorkspace({ d, p }: { d: WorkspaceData; p: P }) {
+  const locked = isLocked(d);
+  // One composer open at a time, beside what it is about: "claim:<id>", "run:<label>", "round:".
+  const [composer, setComposer] = useState<string | null>(null);
+  const close = useCallback(() => setComposer(null), []);
+  const runHref = useCallback((label: string) => {
+    const row = d.runRows.find((r) => r.label === label);
+    return row ? href("/venues/:venueId/submissions/:submissionId/rounds/:round/runs/:runId", { ...p, runId: row.runId }) : href("/venues/:venueId/submissions/:submissionId/rounds/:round/runs", p);
+  }, [d.runRows, p.venueId, p.submissionId, p.round]); // eslint-disable-line react-hooks/exhaustive-deps
+  const renderRemark = useCallback(
+    (f: FlagView, done: () => void) => (
+      <RemarkForm
+        fixedAnchor={{ value: `flag:${f.id}`, label: `flag ${f.rule}${f.runLabel ? ` on ${f.runLabel}` : ""}` }}
+        locked={locked}
+        onDone={done}
+        editorId={`remark-flag-${f.id}`}
+      />
+    ),
+    [locked],
+  );
+  const mode = useMemo(() => ({ kind: "reviewer" as const, verdicts: d.verdicts, locked, renderRemark }), [d.verdicts, locked, renderRemark]);
+  const remarkButton = (key: string, label: string) =>
+    locked ? null : (
+      <button type="button" className="text-caption underline" aria-expanded={composer === key} onClick={() => setComposer(composer === key ? null : key)}>
+        Remark<span className="sr-only"> on {label}</span>
+      </button>
+    );
   return (
     <div>
-      <p className="text-caption">Your report as Reviewer {d.review.number}{d.review.dueAt ? ` · due ${d.review.dueAt}` : ""}</p>
+      <p className="text-caption">
+        Your report as Reviewer {d.review.number}
+        {d.review.dueAt ? ` · due ${d.review.dueAt}` : ""}
+      </p>
       <p className="mt-1">
         Round {d.round.number} (frozen) ·{" "}
-        {d.review.state === "submitted" ? <strong data-testid="report-locked">Report submitted and locked</strong> : locked ? <strong>The round was decided; this report stays as it is</strong> : "report in progress"} ·{" "}
-        <a className="underline" href={href("/venues/:venueId/submissions/:submissionId/rounds/:round/packet.pdf", p)}>Packet (PDF)</a>
-        {d.round.number > 1 ? <> · <a className="underline" href={href("/venues/:venueId/submissions/:submissionId/rounds/:round/changes", p)}>Changes since round {d.round.number - 1}</a></> : null}
+        {d.review.state === "submitted" ? (
+          <strong data-testid="report-locked">Report submitted and locked</strong>
+        ) : locked ? (
+          <strong>The round was decided; this report stays as it is</strong>
+        ) : (
+          "report in progress"
+        )}{" "}
+        ·{" "}
+        <a className="underline" href={href("/venues/:venueId/submissions/:submissionId/rounds/:round/packet.pdf", p)}>
+          Packet (PDF)
+        </a>
+        {d.round.number > 1 ? (
+          <>
+            {" "}
+            ·{" "}
+            <a className="underline" href={href("/venues/:venueId/submissions/:submissionId/rounds/:round/changes", p)}>
+              Changes since round {d.round.number - 1}
+            </a>
+          </>
+        ) : null}
       </p>
-      {d.authors.length ? <p className="mt-1 text-caption" data-testid="authors">{d.authors.map((a) => `${a.name}${a.affiliation ? ` (${a.affiliation})` : ""}`).join("; ")}</p> : null}
-      <div className="mt-6 grid gap-6 lg:grid-cols-2">
-        <div className="flex flex-col gap-4">
+      {d.authors.length ? (
+        <p className="mt-1 text-caption" data-testid="authors">
+          {d.authors.map((a) => `${a.name}${a.affiliation ? ` (${a.affiliation})` : ""}`).join("; ")}
+        </p>
+      ) : null}
+      <div className="mt-6 grid gap-6 xl:grid-cols-[minmax(0,1fr)_18rem]">
+        <div className="flex min-w-0 flex-col gap-4">
           <section className="card" aria-labelledby="claims-h">
-            <h2 id="claims-h" className="text-lead">Claims</h2>
-            <ul className="mt-2 flex flex-col gap-2">
-              {d.claims.map((c) => (
-                <li key={c.id} data-testid="claim">
-                  <p className="font-semibold">{c.figure ? `${c.figure}: ` : ""}{c.title}</p>
-                  {c.statement ? <p className="text-caption">{c.statement}</p> : null}
-                  <p className="text-caption text-basalt-soft">Runs: {c.runs.map((r) => `${r.label} (${r.part})`).join(", ")}</p>
-                  <p className="text-caption text-basalt-soft">Stated: {c.stated.map((s) => `${s.quantity} ${s.value}${s.run ? ` (${s.run})` : ""}`).join("; ")}</p>
-                </li>
-              ))}
+            <h2 id="claims-h" className="text-lead">
+              Claims
+            </h2>
+            <ul className="mt-2 flex flex-col gap-3">
+              {d.claims.map((c) => {
+                const label = `claim ${c.figure ? `${c.figure} ` : ""}${c.title}`.trim();
+                return (
+                  <li key={c.id} id={`claim-${c.id}`} data-testid="claim">
+                    <div className="flex items-baseline justify-between gap-3">
+                      <p className="font-semibold">
+                        {c.figure ? `${c.figure}: ` : ""}
+                        {c.title}
+                      </p>
+                      <span className="flex shrink-0 gap-3">
+                        <a className="text-caption underline" href={href("/venues/:venueId/submissions/:submissionId/rounds/:round/claims/:claimId", { ...p, claimId: c.id })}>
+                          Open<span className="sr-only"> {label}</span>
+                        </a>
+                        {remarkButton(`claim:${c.id}`, label)}
+                      </span>
+                    </div>
+                    {c.statement ? <p className="text-caption">{c.statement}</p> : null}
+                    <p className="text-caption text-basalt-soft">Runs: {c.runs.map((r) => `${r.label} (${r.part})`).join(", ")}</p>
+                    <p className="text-caption text-basalt-soft">Stated: {c.stated.map((s) => `${s.quantity} ${s.value}${s.run ? ` (${s.run})` : ""}`).join("; ")}</p>
+                    {composer === `claim:${c.id}` ? (
+                      <div className="mt-2 rounded border border-lichen p-2" data-testid="claim-remark">
+                        <RemarkForm fixedAnchor={{ value: `claim:${c.id}`, label }} locked={locked} onDone={close} editorId={`remark-claim-${c.id}`} />
+                      </div>
+                    ) : null}
+                  </li>
+                );
+              })}
             </ul>
           </section>
           <section className="card" aria-labelledby="runs-h">
-            <h2 id="runs-h" className="text-lead">Runs</h2>
-            <RunsTable rows={d.runRows} runHref={(r) => href("/venues/:venueId/submissions/:submissionId/rounds/:round/runs/:runId", { ...p, runId: r.runId })} />
+            <h2 id="runs-h" className="text-lead">
+              Runs
+            </h2>
+            <p className="text-caption text-basalt-soft">Each run's name opens its full record: every parameter group and the recomputed numbers.</p>
+            <RunsTable
+              rows={d.runRows}
+              runHref={(r) => href("/venues/:venueId/submissions/:submissionId/rounds/:round/runs/:runId", { ...p, runId: r.runId })}
+              rowAction={locked ? undefined : (r) => remarkButton(`run:${r.label}`, `run ${r.label}`)}
+              rowDetail={(r) =>
+                composer === `run:${r.label}` ? (
+                  <div className="rounded border border-lichen p-2" data-testid="run-remark">
+                    <RemarkForm fixedAnchor={{ value: `run:${r.label}`, label: `run ${r.label}` }} locked={locked} onDone={close} editorId={`remark-run-${runAnchorId(r.label)}`} />
+                  </div>
+                ) : null
+              }
+            />
+          </section>
+          <section className="card" id="flags">
+            <FlagsTable flags={d.flags} mode={mode} runHref={runHref} />
           </section>
           <section className="card" aria-labelledby="plots-h" id="plots">
-            <h2 id="plots-h" className="text-lead">Plots</h2>
+            <h2 id="plots-h" className="text-lead">
+              Plots
+            </h2>
             {d.plots.every((p) => !p.series && !p.spectrum) ? <p className="text-caption text-basalt-soft">No series or spectra were uploaded for these runs.</p> : null}
             {d.plots.map((p) => (
               <div key={p.label} className="mt-2">
@@ -208,54 +358,31 @@ function ReviewWorkspace({ d, p }: { d: WorkspaceData; p: { venueId: string; sub
               </div>
             ))}
           </section>
-        </div>
-        <div className="flex flex-col gap-4">
-          <section className="card" aria-labelledby="flags-h">
-            <h2 id="flags-h" className="text-lead">Flags ({d.flags.length})</h2>
-            <AdvisoryNote className="mt-2" />
-            <ul className="mt-2 flex flex-col gap-2">
-              {d.flags.map((f) => (
-                <FlagItem key={f.id} flag={f}>
-                  <VerdictButtons flagId={f.id} saved={d.verdicts[f.id]} locked={locked} />
-                </FlagItem>
-              ))}
-            </ul>
-          </section>
-          <section className="card" aria-labelledby="remarks-h">
-            <h2 id="remarks-h" className="text-lead">Your remarks</h2>
-            <ul className="mt-2 flex flex-col gap-2" data-testid="my-remarks">
-              {d.remarks.map((m) =>
-                editing === m.id ? (
-                  <li key={m.id} className="border-l-2 border-lichen pl-2">
-                    <RemarkForm anchors={anchors} locked={locked} defaultAnchor={`${m.anchorKind}:${m.anchorRef ?? ""}`} remark={{ id: m.id, body: m.body }} onDone={stopEditing} />
-                  </li>
-                ) : (
-                  <li key={m.id} className="border-l-2 border-rule pl-2">
-                    <p className="text-caption text-basalt-soft">On {m.anchor}</p>
-                    <RichText html={m.html} />
-                    {locked ? null : (
-                      <div className="flex gap-3">
-                        <button className="text-caption underline" type="button" onClick={() => setEditing(m.id)}>Edit</button>
-                        <Form method="post" navigate={false}>
-                          <input type="hidden" name="intent" value="delete-remark" />
-                          <input type="hidden" name="remarkId" value={m.id} />
-                          <button className="text-caption underline" type="submit">Delete</button>
-                        </Form>
-                      </div>
-                    )}
-                  </li>
-                ),
-              )}
-            </ul>
-            <div className="mt-3">
-              <RemarkForm anchors={anchors} locked={locked} />
-            </div>
-          </section>
           <section className="card" aria-labelledby="report-h">
-            <h2 id="report-h" className="text-lead">Recommendation and note</h2>
+            <h2 id="report-h" className="text-lead">
+              Recommendation and note
+            </h2>
             <ReportForm d={d} />
           </section>
         </div>
+        <aside className="card self-start xl:sticky xl:top-4 xl:max-h-[calc(100vh-2rem)] xl:overflow-y-auto" aria-labelledby="remarks-h">
+          <h2 id="remarks-h" className="text-lead">
+            Your remarks ({d.remarks.length})
+          </h2>
+          <p className="text-caption text-basalt-soft">Released to the authors with the decision, as Reviewer {d.review.number}.</p>
+          <RemarksList remarks={d.remarks} locked={locked} />
+          {locked ? null : (
+            <div className="mt-3" id="round-remark">
+              {composer === "round:" ? (
+                <RemarkForm fixedAnchor={{ value: "round:", label: "the round as a whole" }} locked={locked} onDone={close} editorId="remark-round" />
+              ) : (
+                <button type="button" className="btn-quiet" onClick={() => setComposer("round:")}>
+                  Remark on the round as a whole
+                </button>
+              )}
+            </div>
+          )}
+        </aside>
       </div>
     </div>
   );

@@ -8,6 +8,9 @@ import { requireRound } from "~/access/page-guards.server";
 import { roundFlags } from "~/workspace/flags-query.server";
 import { changeClaim, parseJsonText, removeClaim } from "~/workspace/run-edits.server";
 import { roundRunList } from "~/workspace/runs.server";
+import { runPlotsMany } from "~/workspace/round-data.server";
+import { ComparisonChart } from "~/components/workspace/lazy-plots";
+import { StatedTable } from "~/components/workspace/stated-table";
 import type { Route } from "./+types/claim";
 
 export const meta: Route.MetaFunction = () => [{ title: "Claim · Runproof" }];
@@ -24,7 +27,13 @@ export async function loader(args: Route.LoaderArgs) {
   const { round } = access;
   const claim = await claimOfRound(db, round.id, args.params.claimId);
   const [runs, flags] = await Promise.all([roundRunList(db, round.id), roundFlags(db, round.id)]);
+  // The runs of the claim with an attached series, overlaid on one plot (stored downsampled copies).
+  const named = new Set(((claim.record as { runs?: { label: string }[] }).runs ?? []).map((r) => r.label));
+  const claimRuns = runs.filter((r) => named.has(r.label));
+  const plots = claimRuns.length > 1 ? await runPlotsMany(db, claimRuns.map((r) => ({ versionId: r.versionId, label: r.label, record: r.record }))) : [];
   return {
+    stated: claim.checkedKey === null ? null : (claim.statedResults ?? null),
+    overlay: plots.flatMap((p) => (p.series ? [{ label: p.label, plot: p.series }] : [])),
     checkError: round!.checkError,
     claim: { id: claim.id, version: claim.version, figure: claim.figure, statement: claim.statement, record: claim.record },
     runs: runs.map((r) => ({ id: r.runId, label: r.label })),
@@ -69,7 +78,15 @@ export default function Claim({ loaderData: d, params }: Route.ComponentProps) {
           readOnly={!d.canEdit}
         />
         {d.canEdit ? (
-          <Form method="post" className="mt-4">
+          <Form
+            method="post"
+            className="mt-4"
+            onSubmit={(e) => {
+              const title = [d.claim.figure, (d.claim.record as unknown as { title?: string } | null)?.title].filter(Boolean).join(": ") || "this claim";
+              const stated = ((d.claim.record as unknown as { stated?: unknown[] } | null)?.stated ?? []).length;
+              if (!window.confirm(`Delete the claim "${title}" from round ${params.round}? Its ${stated} stated value${stated === 1 ? "" : "s"} and its flags (with any answers to them) are removed; the runs stay.`)) e.preventDefault();
+            }}
+          >
             <input type="hidden" name="intent" value="delete" />
             <button type="submit" className="btn-quiet btn">
               Delete the claim
@@ -77,13 +94,17 @@ export default function Claim({ loaderData: d, params }: Route.ComponentProps) {
           </Form>
         ) : null}
       </section>
+      <StatedTable rows={d.stated} runIds={Object.fromEntries(runId)} params={p} />
+      {d.overlay.length > 1 ? (
+        <ComparisonChart runs={d.overlay} title={`The claim's runs overlaid: ${d.overlay.map((o) => o.label).join(", ")} (downsampled series)`} />
+      ) : null}
       <FlagsPanel
         flags={d.flags}
         checkError={d.checkError}
         runLabels={d.runs.map((r) => r.label)}
         claims={[]}
         runHref={(label) => (runId.get(label) ? href("/venues/:venueId/submissions/:submissionId/rounds/:round/runs/:runId", { ...p, runId: runId.get(label)! }) : null)}
-        claimHref={(_id, row) => (row !== null ? `#stated-${row}` : "#")}
+        claimHref={(_id, row) => (row !== null ? `#checked-${row}` : "#")}
         answerAction={d.canEdit ? (id) => href("/venues/:venueId/submissions/:submissionId/rounds/:round/flags/:flagId/answer", { ...p, flagId: id }) : undefined}
       />
     </div>

@@ -9,6 +9,8 @@ import { RUNS_PAGE_SIZE } from "~/components/workspace/use-runs-page";
 import { roundRunCount, roundRunPoints, roundRunRows } from "~/workspace/round-data.server";
 import { formToRecord } from "~/workspace/run-form-fields";
 import { addRun, importNamelist, parseJsonText, saveKeyMap, savedKeyMap } from "~/workspace/run-edits.server";
+import { BULK_LIMITS } from "~/workspace/run-import-limits";
+import { checkBulkBounds, importRuns, recordsFromJsonFiles, recordsFromNamelists, type BulkFile } from "~/workspace/run-import.server";
 import type { Route } from "./+types/index";
 
 export const meta: Route.MetaFunction = () => [{ title: "Runs · Runproof" }];
@@ -23,7 +25,15 @@ export async function loader(args: Route.LoaderArgs) {
     roundRunPoints(db, access.round.id),
     canEdit ? savedKeyMap(db, access.submission.id) : null,
   ]);
-  return { rows, total, points, canEdit, keyMap: keyMapText(map ?? SUGGESTED_MAP), keyMapSaved: Boolean(map) };
+  const deleted = new URL(args.request.url).searchParams.get("deleted")?.slice(0, 200) ?? null;
+  return { rows, total, points, canEdit, deleted, keyMap: keyMapText(map ?? SUGGESTED_MAP), keyMapSaved: Boolean(map) };
+}
+
+/** The chosen files of a multiple-file input, bounded before any is read. */
+async function chosenFiles(form: FormData): Promise<BulkFile[]> {
+  const files = form.getAll("files").filter((v): v is File => typeof v !== "string" && v.size > 0);
+  checkBulkBounds(files.map((f) => ({ name: f.name || "file", size: f.size })));
+  return Promise.all(files.map(async (f) => ({ name: (f.name || "file").slice(0, 200), text: await f.text() })));
 }
 
 async function fileText(v: FormDataEntryValue | null) {
@@ -56,6 +66,14 @@ export async function action(args: Route.ActionArgs) {
       if (form.get("saveMap") === "on") await saveKeyMap(db, submission.id, map);
       throw redirect(runPage(out.run.id));
     }
+    if (intent === "bulk-json" || intent === "bulk-namelist") {
+      const files = await chosenFiles(form);
+      const map = intent === "bulk-namelist" ? parseKeyMap(String(form.get("keyMap") ?? "")) : null;
+      const read = map ? recordsFromNamelists(files, map, formToRecord(form)) : recordsFromJsonFiles(files);
+      const created = await importRuns(db, { submissionId: submission.id, roundId: round.id, userId: user.id, origin: map ? "namelist" : "json", ...read });
+      if (map && form.get("saveMap") === "on") await saveKeyMap(db, submission.id, map);
+      return data({ intent, imported: created.map((c) => c.label) });
+    }
   } catch (e) {
     if (e instanceof Response) throw e;
     return serviceError(e, { intent, values: Object.fromEntries([...form.entries()].filter(([, v]) => typeof v === "string")) as Record<string, string> });
@@ -71,12 +89,20 @@ export default function Runs({ loaderData: d, actionData, params }: Route.Compon
   const jsonErr = err("json");
   const nlErr = err("namelist");
   const formErr = err("form");
+  const bulkJsonErr = err("bulk-json");
+  const bulkNlErr = err("bulk-namelist");
+  const imported = actionData && "imported" in actionData ? actionData.imported : null;
   return (
     <div className="flex flex-col gap-6">
       <section aria-labelledby="runs-h">
         <h3 id="runs-h" className="text-lead">
           Runs
         </h3>
+        {d.deleted ? (
+          <p role="status" className="text-lichen" data-testid="run-deleted">
+            Run {d.deleted} was deleted from this round.
+          </p>
+        ) : null}
         {d.rows.length ? <RunsTable
             rows={d.rows}
             total={d.total}
@@ -107,6 +133,63 @@ export default function Runs({ loaderData: d, actionData, params }: Route.Compon
                 Upload the run record
               </button>
             </Form>
+          </details>
+          {imported ? (
+            <p role="status" className="text-lichen" data-testid="bulk-imported">
+              Imported {imported.length} run{imported.length === 1 ? "" : "s"}: {imported.join(", ")}. The checker is checking them.
+            </p>
+          ) : null}
+          <details className="card" open={Boolean(bulkJsonErr)}>
+            <summary className="cursor-pointer font-semibold">Import many run records at once (JSON files)</summary>
+            <Form method="post" encType="multipart/form-data" className="mt-3 flex flex-col gap-2" data-testid="bulk-json">
+              <input type="hidden" name="intent" value="bulk-json" />
+              <label htmlFor="bulk-json-files" className="font-semibold">
+                Run record files (each one record, or an array of records)
+              </label>
+              <input id="bulk-json-files" type="file" name="files" multiple accept=".json,application/json" className="field-input" />
+              <p className="text-caption">
+                All or nothing: one bad record stores none of them, and each problem is named by file, record and field. At most {BULK_LIMITS.files} files,{" "}
+                {BULK_LIMITS.records} records, {BULK_LIMITS.fileBytes / 1024} KB a file and {BULK_LIMITS.totalBytes / 1024 / 1024} MB in all.
+              </p>
+              {bulkJsonErr ? <IssueList message={bulkJsonErr.message} issues={bulkJsonErr.issues} testId="bulk-json-error" /> : null}
+              <button type="submit" className="btn self-start">
+                Import the runs
+              </button>
+            </Form>
+          </details>
+          <details className="card" open={Boolean(bulkNlErr)}>
+            <summary className="cursor-pointer font-semibold">Import many Fortran namelists at once</summary>
+            <RunForm
+              intent="bulk-namelist"
+              idPrefix="bnl"
+              submitLabel="Import the namelists"
+              values={bulkNlErr ? values : {}}
+              message={bulkNlErr?.message}
+              issues={bulkNlErr?.issues ?? []}
+              multipart
+              extra={
+                <div className="grid gap-3 md:grid-cols-2">
+                  <div className="flex flex-col gap-1">
+                    <label htmlFor="bulk-namelist-files" className="font-semibold">
+                      Namelist files (one run each; its label is the file's name unless the key map or the label field below gives one)
+                    </label>
+                    <input id="bulk-namelist-files" type="file" name="files" multiple className="field-input" />
+                    <p className="text-caption">
+                      All or nothing, at most {BULK_LIMITS.files} files of {BULK_LIMITS.fileBytes / 1024} KB each. The fields below are shared by every run; each namelist's values take precedence.
+                    </p>
+                  </div>
+                  <div className="flex flex-col gap-1">
+                    <label htmlFor="bulk-namelist-map" className="font-semibold">
+                      Your key map (key = run-record path; "ignore" skips a key)
+                    </label>
+                    <textarea id="bulk-namelist-map" name="keyMap" rows={8} className="field-input font-mono" defaultValue={values.keyMap ?? d.keyMap} />
+                    <label className="flex items-center gap-1 text-caption">
+                      <input type="checkbox" name="saveMap" defaultChecked /> Keep this key map for the submission
+                    </label>
+                  </div>
+                </div>
+              }
+            />
           </details>
           <details className="card" open={Boolean(nlErr)}>
             <summary className="cursor-pointer font-semibold">Import a Fortran namelist</summary>

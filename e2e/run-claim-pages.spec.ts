@@ -1,0 +1,131 @@
+/**
+ * The claim page (stated values beside the recomputed ones, with the interval used and the
+ * outcome in words), the run page's version diff and series statistics, the plots' log scale and
+ * zoom, and the editor's "send the digest now" reaching the authors' mailboxes.
+ */
+import AxeBuilder from "@axe-core/playwright";
+import { expect, test, type Page } from "@playwright/test";
+import { mailsTo } from "./support/mail";
+import { fixture } from "./support/review";
+import { demo, login } from "./support/session";
+
+// axe over pages with several charts takes a while on a busy machine.
+test.describe.configure({ timeout: 180_000 });
+
+type Draft = { venueId: string; submissionId: string; roundId: string; runIds: Record<string, string>; claimId: string };
+type Sent = { venueId: string; submissionId: string; roundId: string };
+
+async function seriousViolations(page: Page) {
+  const results = await new AxeBuilder({ page }).analyze();
+  return results.violations.filter((v) => v.impact === "serious" || v.impact === "critical").map((v) => `${v.id}: ${v.help} (${v.nodes.map((n) => n.target.join(" ")).join(", ")})`);
+}
+
+test("claim page: each stated value beside the recomputed one, its interval and the outcome in words; the claim's runs overlaid", async ({ page }) => {
+  const fx = fixture<Draft>("make-checked-draft.ts", `Claim page ${Date.now()}`);
+  await login(page, "author");
+  await page.goto(`/venues/${fx.venueId}/submissions/${fx.submissionId}/rounds/1/claims/${fx.claimId}`);
+  const table = page.getByTestId("stated-values");
+  await expect(table).toBeVisible();
+  // examples/claims/layer-zonal-flow.json: E "1 × 10^-4" for both runs → [5 × 10⁻⁵, 1.5 × 10⁻⁴) (family B: half a unit in the last digit).
+  const e = table.getByTestId("stated-check").filter({ hasText: "ref-A" }).filter({ hasText: "1 × 10^-4" });
+  await expect(e).toContainText("1 × 10^-4 → [5 × 10⁻⁵, 1.5 × 10⁻⁴)");
+  await expect(e).toContainText("10⁻⁴");
+  await expect(e).toContainText("Agrees");
+  await expect(e).toHaveAttribute("data-outcome", "agrees");
+  // "≥ 1.5" magnetic diffusion times: a one-sided interval.
+  await expect(table.getByTestId("stated-check").filter({ hasText: "runLength.magnetic" })).toContainText("≥ 1.5 → ≥ 1.5");
+  // Every row says its outcome in words, not by colour alone.
+  for (const row of await table.getByTestId("stated-check").all()) await expect(row).toContainText(/Agrees|Differs|Cannot be recomputed|Cannot be decided/);
+  // The comparison claim's two runs on one plot.
+  const overlay = page.getByTestId("comparison-chart");
+  await expect(overlay).toContainText("ref-A, strat-B");
+  await expect(overlay.locator("svg .recharts-line").first()).toBeVisible();
+  expect(await overlay.locator(".recharts-legend-item").count()).toBeGreaterThanOrEqual(2);
+  expect(await seriousViolations(page), "claim page").toEqual([]);
+
+  // The parameter-space chart on the overview: run labels drawn, none on top of another.
+  await page.goto(`/venues/${fx.venueId}/submissions/${fx.submissionId}/rounds/1`);
+  const labels = page.getByTestId("parameter-label").locator("text");
+  await expect(labels.first()).toBeVisible();
+  const boxes = await labels.evaluateAll((els) => els.map((e) => e.getBoundingClientRect()).map((r) => ({ x: r.x, y: r.y, w: r.width, h: r.height })));
+  for (let i = 0; i < boxes.length; i++)
+    for (let j = i + 1; j < boxes.length; j++) {
+      const [a, b] = [boxes[i]!, boxes[j]!];
+      expect(a.x < b.x + b.w && b.x < a.x + a.w && a.y < b.y + b.h && b.y < a.y + a.h, `labels ${i} and ${j} overlap`).toBe(false);
+    }
+});
+
+test("run page: series statistics in the derived panel, log scale and zoom, and a diff between two versions", async ({ page }) => {
+  const fx = fixture<Draft>("make-checked-draft.ts", `Run page ${Date.now()}`);
+  await login(page, "author");
+  const runUrl = `/venues/${fx.venueId}/submissions/${fx.submissionId}/rounds/1/runs/${fx.runIds["ref-A"]}`;
+  await page.goto(runUrl);
+  const derived = page.getByTestId("run-derived");
+  const stats = derived.getByTestId("series-stats");
+  await expect(stats).toBeVisible();
+  for (const symbol of ["⟨x⟩", "σ⟨x⟩", "τ_int", "N_eff", "t_trans", "z"]) await expect(stats.locator("abbr", { hasText: symbol }).first()).toBeVisible();
+  await expect(stats.locator("abbr", { hasText: "τ_int" })).toHaveAttribute("title", /autocorrelation time/);
+  await expect(stats.getByRole("rowheader", { name: "Re" })).toBeVisible();
+
+  // Log scale: the toggle switches every column's y axis.
+  const chart = page.getByTestId("series-chart");
+  await expect(chart.getByTestId("series-column-plot").first()).toHaveAttribute("data-scale", "linear");
+  await chart.getByLabel("Logarithmic y axis").check();
+  await expect(chart.getByTestId("series-column-plot").first()).toHaveAttribute("data-scale", "log");
+  // Zoom: drag across a plot, then reset.
+  const plot = chart.getByTestId("series-column-plot").first().locator(".recharts-surface");
+  await expect(plot).toBeVisible();
+  const box = (await plot.boundingBox())!;
+  await page.mouse.move(box.x + box.width * 0.4, box.y + box.height * 0.4);
+  await page.mouse.down();
+  await page.mouse.move(box.x + box.width * 0.6, box.y + box.height * 0.4, { steps: 8 });
+  await page.mouse.move(box.x + box.width * 0.7, box.y + box.height * 0.4, { steps: 8 });
+  await page.mouse.up();
+  await expect(chart.getByText(/Showing t = /)).toBeVisible();
+  await chart.getByRole("button", { name: "Reset zoom" }).click();
+  await expect(chart.getByText(/Showing t = /)).toHaveCount(0);
+  expect(await seriousViolations(page), "run page").toEqual([]);
+
+  // A new version in the draft, then the diff between version 1 and 2.
+  await page.getByLabel("Magnetic Prandtl number Pm").fill("2.5");
+  await page.getByRole("button", { name: "Save as a new version" }).click();
+  await expect(page.getByRole("status").filter({ hasText: "Saved as version 2" })).toBeVisible();
+  await page.goto(`${runUrl}?from=1&to=2`);
+  const diff = page.getByTestId("version-diff");
+  await expect(diff).toContainText("Version 1 → version 2: 1 field(s) changed");
+  const row = diff.getByTestId("diff-row");
+  await expect(row).toHaveCount(1);
+  await expect(row).toContainText("Pm");
+  await expect(row.locator("del")).toHaveText("2");
+  await expect(row.locator("ins")).toHaveText("2.5");
+  await expect(diff.locator("caption")).toHaveText("Controls");
+  // The choice sits in the URL: the other direction reads the other way round.
+  await page.goto(`${runUrl}?from=2&to=1`);
+  await expect(page.getByTestId("diff-row").locator("del")).toHaveText("2.5");
+});
+
+test("the editor sends a submission's digest now: asked once with who gets it, then the authors have it", async ({ page }) => {
+  const title = `Digest now ${Date.now()}`;
+  const fx = fixture<Sent>("make-sent-round.ts", title);
+  const coauthor = demo("coauthor1");
+  await login(page, "editor");
+  await page.goto(`/venues/${fx.venueId}/submissions/${fx.submissionId}/rounds/1/desk`);
+  const box = page.getByTestId("digest-now");
+  await expect(box).toContainText(coauthor.email);
+  let asked = "";
+  page.once("dialog", (d) => {
+    asked = d.message();
+    void d.accept();
+  });
+  await box.getByRole("button", { name: "Send the digest now" }).click();
+  await expect(box.getByRole("status")).toContainText("Digest sent to");
+  expect(asked).toContain(coauthor.email);
+  let text = "";
+  await expect
+    .poll(async () => {
+      text = (await mailsTo(coauthor.email)).find((m) => m.subject.includes("digest") && m.text.includes(title))?.text ?? "";
+      return text !== "";
+    }, { timeout: 30_000, message: `no digest about "${title}" reached ${coauthor.email}` })
+    .toBe(true);
+  expect(text).toMatch(/Round 1: \d+ mismatch flag\(s\) raised/);
+});
