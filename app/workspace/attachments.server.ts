@@ -69,6 +69,8 @@ export async function attachCsv(db: Database, opts: AttachOptions): Promise<{ at
   let uploaded = false;
   // Set when object storage fails (down, refusing): reading stops and the caller is told to retry.
   let storageError: unknown = null;
+  // Set when this function abandons the upload itself (bad CSV, too large): not a storage failure.
+  let abandoned = false;
   toStorage.on("error", () => {});
 
   // One pass over the body: count, hash, forward to storage (respecting its back-pressure), parse.
@@ -104,6 +106,7 @@ export async function attachCsv(db: Database, opts: AttachOptions): Promise<{ at
 
   const upload = storage.put(key, toStorage, FORMAT_CONTENT_TYPES[format]).then(() => (uploaded = true));
   upload.catch((e) => {
+    if (abandoned) return;
     storageError = e;
     toStorage.destroy();
   });
@@ -116,6 +119,7 @@ export async function attachCsv(db: Database, opts: AttachOptions): Promise<{ at
     toStorage.end();
     await upload;
   } catch (e) {
+    abandoned = !storageError;
     toStorage.destroy();
     await upload.catch(() => {});
     await storage.remove(key).catch(() => {});
