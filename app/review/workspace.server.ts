@@ -4,8 +4,7 @@ import { contributors } from "~db/schema";
 import type { RunRecord } from "~/checker/schema";
 import { roundClaims } from "~/workspace/claims.server";
 import { roundFlags } from "~/workspace/flags-query.server";
-import { roundRunRows, runPlotsMany } from "~/workspace/round-data.server";
-import { roundRunList } from "~/workspace/runs.server";
+import { roundRunRows, roundRunsWithPlots } from "~/workspace/round-data.server";
 import type { RoundContext } from "./round-context.server";
 import { anchorLabels } from "./remarks.server";
 import { reportParts } from "./reviews.server";
@@ -16,10 +15,10 @@ import { renderRichText } from "./tiptap/render.server";
  * at single-blind venues; no other reviewer's anything is selected.
  */
 export async function reviewerView(db: Database, ctx: RoundContext, review: { id: string }, opts: { showAuthors: boolean }) {
-  const [claimRows, runRows, versions, flagRows, parts, people] = await Promise.all([
+  const [claimRows, runRows, withPlots, flagRows, parts, people] = await Promise.all([
     roundClaims(db, ctx.round.id),
     roundRunRows(db, ctx.round.id),
-    roundRunList(db, ctx.round.id),
+    roundRunsWithPlots(db, ctx.round.id),
     roundFlags(db, ctx.round.id),
     reportParts(db, review.id),
     !opts.showAuthors
@@ -27,7 +26,6 @@ export async function reviewerView(db: Database, ctx: RoundContext, review: { id
       : (ctx.round.sentContributors ??
         db.select({ name: contributors.name, affiliation: contributors.affiliation }).from(contributors).where(eq(contributors.submissionId, ctx.submission.id)).orderBy(asc(contributors.position))),
   ]);
-  const plots = await runPlotsMany(db, versions);
   const label = await anchorLabels(db, ctx.round.id);
   return {
     authors: people.map((p) => ({ name: p.name, affiliation: p.affiliation })),
@@ -36,7 +34,8 @@ export async function reviewerView(db: Database, ctx: RoundContext, review: { id
       return { id: c.id, figure: c.figure, statement: c.statement, title: rec.title ?? "", runs: rec.runs ?? [], stated: rec.stated ?? [] };
     }),
     runRows,
-    plots: plots.map((p) => ({ label: p.label, series: p.series, spectrum: p.spectrum })),
+    // Which runs have plots; each run's plot copies load when the reviewer asks for them.
+    plots: withPlots,
     flags: flagRows,
     verdicts: Object.fromEntries(parts.verdicts.map((v) => [v.flagId, { verdict: v.verdict, reason: v.reason }])) as Record<string, { verdict: string; reason: string | null }>,
     // The reviewer's own remarks come with their JSON too, so they can be edited until submitted.

@@ -105,6 +105,23 @@ export async function roundRunPoints(db: Database, roundId: string) {
     .orderBy(sql`${runs.label} collate "C"`);
 }
 
+/** The round's runs that have a series or a spectrum attached (which plots exist, not their data). */
+export async function roundRunsWithPlots(db: Database, roundId: string) {
+  return db
+    .select({
+      runId: runs.id,
+      label: runs.label,
+      series: sql<boolean>`bool_or(${attachments.kind} = 'series')`,
+      spectrum: sql<boolean>`bool_or(${attachments.kind} = 'spectrum')`,
+    })
+    .from(roundRuns)
+    .innerJoin(runs, eq(runs.id, roundRuns.runId))
+    .innerJoin(attachments, and(eq(attachments.runVersionId, roundRuns.runVersionId), eq(attachments.active, true), inArray(attachments.kind, ["series", "spectrum"])))
+    .where(eq(roundRuns.roundId, roundId))
+    .groupBy(runs.id, runs.label)
+    .orderBy(sql`${runs.label} collate "C"`);
+}
+
 /** How many runs a round has (for paging). */
 export async function roundRunCount(db: Database, roundId: string) {
   const [row] = await db.select({ n: sql<number>`count(*)::int` }).from(roundRuns).where(eq(roundRuns.roundId, roundId));

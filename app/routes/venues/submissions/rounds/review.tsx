@@ -7,7 +7,7 @@ import { FlagsTable, REVEAL_FLAG_EVENT } from "~/components/review/flags-table";
 import { RemarkForm } from "~/components/review/remark-form";
 import { RichText } from "~/components/review/rich-text";
 import { RichTextEditor } from "~/components/review/rich-text-editor";
-import { SeriesChart, SpectrumChart } from "~/components/workspace/lazy-plots";
+import { RunPlotsOnDemand } from "~/components/review/run-plots-on-demand";
 import { runAnchorId, RunsTable } from "~/components/workspace/runs-table";
 import type { FlagView } from "~/workspace/view-types";
 import { onlyFlagQueryChanged } from "~/review/flag-table";
@@ -350,13 +350,20 @@ function ReviewWorkspace({ d, p }: { d: WorkspaceData; p: P }) {
             <h2 id="plots-h" className="text-lead">
               Plots
             </h2>
-            {d.plots.every((p) => !p.series && !p.spectrum) ? <p className="text-caption text-basalt-soft">No series or spectra were uploaded for these runs.</p> : null}
-            {d.plots.map((p) => (
-              <div key={p.label} className="mt-2">
-                {p.series ? <SeriesChart plot={p.series} title={`${p.label}: time series`} /> : null}
-                {p.spectrum ? <SpectrumChart plot={p.spectrum} title={`${p.label}: spectrum`} /> : null}
-              </div>
-            ))}
+            {d.plots.length === 0 ? (
+              <p className="text-caption text-basalt-soft">No series or spectra were uploaded for these runs.</p>
+            ) : (
+              <ul className="mt-2 divide-y divide-rule">
+                {d.plots.map((r) => (
+                  <RunPlotsOnDemand
+                    key={r.runId}
+                    label={r.label}
+                    kinds={[r.series ? "time series" : "", r.spectrum ? "spectrum" : ""].filter(Boolean).join(" and ")}
+                    runHref={href("/venues/:venueId/submissions/:submissionId/rounds/:round/runs/:runId", { ...p, runId: r.runId })}
+                  />
+                ))}
+              </ul>
+            )}
           </section>
           <section className="card" aria-labelledby="report-h">
             <h2 id="report-h" className="text-lead">
