@@ -68,12 +68,12 @@ export default function ApiGuide({ loaderData }: Route.ComponentProps) {
       <Example title="Read the flags the checker found" code={ex.flags} />
       <p className="mt-4">
         A complete Node script that pushes a run and its series:{" "}
-        <a href={href("/help/downloads/push-run.mjs")} download data-testid="push-run-download">
+        <a href={href("/help/downloads/push-run.mjs")} download data-testid="push-run-download" className="underline">
           download push-run.mjs
         </a>{" "}
         (Node 18 or newer, no dependencies; <code>RUNPROOF_TOKEN=rp_… node push-run.mjs &lt;submissionId&gt; &lt;round&gt; run.json [series.csv]</code>). The
         command-line checker, which answers like <code>POST /api/v1/check</code> without a server, is on{" "}
-        <Link to={href("/help/checks")}>the checks reference</Link>.
+        <Link to={href("/help/checks")} className="underline">the checks reference</Link>.
       </p>
       <AdvisoryNote className="mt-4" />
       <h2 className="mt-6 text-heading font-semibold">Errors</h2>

@@ -50,7 +50,7 @@ export default function ChecksReference({ loaderData }: Route.ComponentProps) {
           Check on your own machine
         </h2>
         <p className="mt-1">
-          <a href={href("/help/downloads/runproof-check.mjs")} download>
+          <a href={href("/help/downloads/runproof-check.mjs")} download className="underline">
             Download the command-line checker
           </a>{" "}
           (<code className="font-mono">runproof-check.mjs</code>, one file for Node 20 or newer, nothing to install). It prints the same JSON as the
