@@ -10,14 +10,14 @@ test("bad uploads give a clear message and store nothing", async ({ page }) => {
   // A malformed JSON run record: the message names the position; no run appears.
   await page.goto(`${round}/runs`);
   await page.getByText("Upload a run record (runproof.run/1 JSON)").click();
-  await page.getByLabel("Run record file").setInputFiles({ name: "broken.json", mimeType: "application/json", buffer: Buffer.from('{ "format": "runproof.run/1",\n  "label": "x" "geometry": {} }') });
+  await page.getByLabel("Run record file", { exact: true }).setInputFiles({ name: "broken.json", mimeType: "application/json", buffer: Buffer.from('{ "format": "runproof.run/1",\n  "label": "x" "geometry": {} }') });
   await page.getByRole("button", { name: "Upload the run record" }).click();
   await expect(page.getByTestId("json-error")).toContainText("The file is not valid JSON; nothing was stored.");
   await expect(page.getByTestId("json-error")).toContainText("line 2");
   await expect(page.getByText("No runs yet.")).toBeVisible();
 
   // A well-formed record that breaks the format: the JSON path of the problem is shown.
-  await page.getByLabel("Run record file").setInputFiles({ name: "bad-key.json", mimeType: "application/json", buffer: Buffer.from(runJson("bad", { controls: { E: 1e-4, Ra: 1e7, Pr: 1, Pmag: 2 } })) });
+  await page.getByLabel("Run record file", { exact: true }).setInputFiles({ name: "bad-key.json", mimeType: "application/json", buffer: Buffer.from(runJson("bad", { controls: { E: 1e-4, Ra: 1e7, Pr: 1, Pmag: 2 } })) });
   await page.getByRole("button", { name: "Upload the run record" }).click();
   await expect(page.getByTestId("json-error")).toContainText("controls.Pmag");
   await expect(page.getByText("No runs yet.")).toBeVisible();
@@ -48,7 +48,7 @@ test("bad uploads give a clear message and store nothing", async ({ page }) => {
 
   // A run to attach files to, then a CSV with a bad row: the line is named, nothing attached.
   await page.getByText("Upload a run record (runproof.run/1 JSON)").click();
-  await page.getByLabel("Run record file").setInputFiles({ name: "ok.json", mimeType: "application/json", buffer: Buffer.from(runJson("ok-run")) });
+  await page.getByLabel("Run record file", { exact: true }).setInputFiles({ name: "ok.json", mimeType: "application/json", buffer: Buffer.from(runJson("ok-run")) });
   await page.getByRole("button", { name: "Upload the run record" }).click();
   await expect(page.getByRole("heading", { name: "Run ok-run" })).toBeVisible();
   const bad = "t,kineticEnergy\r\n0,1.0\r\n0.5,1.1\r\n1.0,oops\r\n1.5,1.2\r\n";

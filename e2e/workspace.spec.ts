@@ -70,7 +70,7 @@ test("an author takes a submission from empty to sent; a co-author follows; an u
   // Run 2 by a JSON upload: its diffusivities give Pm = 1.25, not the configured 2.
   await page.goto(`${round}/runs`);
   await page.getByText("Upload a run record (runproof.run/1 JSON)").click();
-  await page.getByLabel("Run record file").setInputFiles({
+  await page.getByLabel("Run record file", { exact: true }).setInputFiles({
     name: "strat-B.json",
     mimeType: "application/json",
     buffer: Buffer.from(runJson("strat-B", { material: { nu: "0.5 m^2/s", eta: "0.4 m^2/s" }, stableLayer: { position: "top", edgeRadius: 1.45 } })),
