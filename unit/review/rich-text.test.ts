@@ -90,3 +90,19 @@ describe("formulas in rich text", () => {
     expect(mail.text).toContain("• a");
   });
 });
+
+describe("rendered documents are kept per document text", () => {
+  it("gives the same HTML for the same document and follows any change of the text", () => {
+    const doc = (text: string) => ({ type: "doc", content: [{ type: "paragraph", content: [{ type: "text", text }] }] });
+    const first = renderRichText(doc("Stated Pm = 2"));
+    expect(renderRichText(doc("Stated Pm = 2"))).toBe(first);
+    expect(first).toContain("Stated Pm = 2");
+    const changed = renderRichText(doc("Stated Pm = 3"));
+    expect(changed).toContain("Stated Pm = 3");
+    expect(changed).not.toContain("Pm = 2");
+    // The mail form of the same document is its own entry (MathML only, no KaTeX HTML).
+    const tex = { type: "doc", content: [{ type: "paragraph", content: [{ type: "text", text: "Ro = Re\\,E", marks: [{ type: "tex" }] }] }] };
+    expect(renderRichText(tex)).toContain("katex-html");
+    expect(richMailPart(tex).html).not.toContain("katex-html");
+  });
+});

@@ -28,8 +28,30 @@ function typeset(tex: string, output: "htmlAndMathml" | "mathml") {
   return output === "mathml" ? html.replace(/<annotation[^>]*>[\s\S]*?<\/annotation>/g, "") : html;
 }
 
+// Stored documents do not change, and building the renderer from the extensions costs a few
+// milliseconds per document: the result is kept per document text (most recently used first).
+const RENDERED_MAX_ENTRIES = 2000;
+const RENDERED_MAX_KEY = 256 * 1024;
+const rendered = new Map<string, string>();
+
 function render(doc: unknown, output: "htmlAndMathml" | "mathml"): string {
   if (!doc || typeof doc !== "object") return "";
+  const key = `${output}\u0000${JSON.stringify(doc)}`;
+  const hit = rendered.get(key);
+  if (hit !== undefined) {
+    rendered.delete(key);
+    rendered.set(key, hit);
+    return hit;
+  }
+  const html = renderOnce(doc, output);
+  if (key.length <= RENDERED_MAX_KEY) {
+    rendered.set(key, html);
+    if (rendered.size > RENDERED_MAX_ENTRIES) rendered.delete(rendered.keys().next().value!);
+  }
+  return html;
+}
+
+function renderOnce(doc: object, output: "htmlAndMathml" | "mathml"): string {
   let html: string;
   try {
     html = renderToHTMLString({ content: doc as never, extensions: richTextExtensions });
