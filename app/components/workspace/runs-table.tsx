@@ -1,5 +1,6 @@
 import { Fragment, type ReactNode } from "react";
 import { Link } from "react-router";
+import { sig4 } from "~/lib/sig-figs";
 import type { RunRow } from "~/workspace/view-types";
 import { useRunsPage } from "./use-runs-page";
 
@@ -20,10 +21,10 @@ const COLUMNS: { key: Exclude<keyof RunRow, "checking" | "updatedAt">; label: st
 /** The element id of a run's row, for links such as a remark's anchor. */
 export const runAnchorId = (label: string) => `run-${label.replace(/[^A-Za-z0-9_-]/g, "_")}`;
 
+/** A table cell or axis tick: four significant figures (2.5 × 10⁷ for large and small magnitudes); "—" when unknown. */
 export function formatNumber(v: unknown): string {
   if (typeof v !== "number") return v === null || v === undefined ? "—" : String(v);
-  if (v === 0 || (Math.abs(v) >= 0.01 && Math.abs(v) < 1e4)) return String(Number(v.toPrecision(4)));
-  return v.toExponential(2);
+  return sig4(v);
 }
 
 /** One row per run with key controls, derived numbers and flag counts; sorted by any column. */
