@@ -78,7 +78,7 @@ export default function Invitation({ loaderData: d, actionData }: Route.Componen
       {!d.signedInAs ? (
         <p className="mt-3 text-caption">
           To accept, <Link className="underline" to={`${href("/sign-in")}?next=${encodeURIComponent(d.next)}`}>sign in</Link> as {inv.email} (or{" "}
-          <Link className="underline" to={href("/sign-up")}>create an account</Link> with that address) and open this link again. Declining needs no account.
+          <Link className="underline" to={`${href("/sign-up")}?next=${encodeURIComponent(d.next)}`}>create an account</Link> with that address; once you confirm it you come back here). Declining needs no account.
         </p>
       ) : wrongAccount ? (
         <p className="mt-3 text-caption">You are signed in as {d.signedInAs}; the invitation is for {inv.email}.</p>
