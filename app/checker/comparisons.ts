@@ -8,7 +8,7 @@ import type { ClaimContext, RunContext } from "./context.ts";
 import { fitPowerLaw } from "./power-law.ts";
 import { lookup, lookupMaterial } from "./quantities.ts";
 import { contains, overlaps, parseStated, type Interval } from "./stated.ts";
-import { comparableValue } from "./rules/k-ratio-scaling.ts";
+import { comparableValue, scalingPoints } from "./rules/k-ratio-scaling.ts";
 import { relDiff } from "./types.ts";
 
 export type StatedOutcome = "agrees" | "differs" | "unverifiable" | "undecided";
@@ -101,17 +101,7 @@ function ratioRow(cc: ClaimContext, q: string, [a, b]: [string, string], iv: Int
 
 function scalingRow(cc: ClaimContext, q: string, x: string, iv: Interval, base: Base): StatedComparison {
   const at = { ...base, kind: "scaling" as const, run: null, quantity: `exponent of ${q} ∝ ${x}^b` };
-  const xs: number[] = [];
-  const ys: number[] = [];
-  for (const { label } of cc.claim.runs) {
-    const ctx = cc.runs.get(label);
-    const vx = ctx && comparableValue(ctx, x);
-    const vy = ctx && comparableValue(ctx, q);
-    if (vx !== undefined && vy !== undefined && vx > 0 && vy > 0) {
-      xs.push(vx);
-      ys.push(vy);
-    }
-  }
+  const { xs, ys } = scalingPoints(cc, q, x);
   const fit = fitPowerLaw(xs, ys);
   if (xs.length < 3 || !fit || fit.standardError === undefined || fit.span < 3) {
     return { ...at, against: fit ? { source: "exponent", value: fit.exponent } : null, note: "too few runs or too narrow a range to decide", outcome: "undecided" };

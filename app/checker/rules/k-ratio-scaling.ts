@@ -45,6 +45,28 @@ export function comparableValue(ctx: RunContext, q: string): number | undefined 
   return v;
 }
 
+/**
+ * The points of a scaling statement q ∝ x^b: each claim run with both quantities known and
+ * positive (a power law is fitted in logs), and the runs left out.
+ */
+export function scalingPoints(cc: ClaimContext, q: string, x: string) {
+  const used: string[] = [];
+  const skipped: string[] = [];
+  const xs: number[] = [];
+  const ys: number[] = [];
+  for (const { label } of cc.claim.runs) {
+    const ctx = cc.runs.get(label);
+    const vx = ctx && comparableValue(ctx, x);
+    const vy = ctx && comparableValue(ctx, q);
+    if (vx !== undefined && vy !== undefined && vx > 0 && vy > 0) {
+      used.push(label);
+      xs.push(vx);
+      ys.push(vy);
+    } else skipped.push(label);
+  }
+  return { used, skipped, xs, ys };
+}
+
 export function checkRatioScaling(cc: ClaimContext): Flag[] {
   const out: Flag[] = [];
   (cc.claim.stated ?? []).forEach((row, i) => {
@@ -74,20 +96,7 @@ function checkRatio(cc: ClaimContext, q: string, [a, b]: [string, string], value
 function checkScaling(cc: ClaimContext, q: string, x: string, value: string | number, row: number): Flag[] {
   const iv = parseStated(value);
   const out: Flag[] = [];
-  const used: string[] = [];
-  const skipped: string[] = [];
-  const xs: number[] = [];
-  const ys: number[] = [];
-  for (const { label } of cc.claim.runs) {
-    const ctx = cc.runs.get(label);
-    const vx = ctx && comparableValue(ctx, x);
-    const vy = ctx && comparableValue(ctx, q);
-    if (vx !== undefined && vy !== undefined && vx > 0 && vy > 0) {
-      used.push(label);
-      xs.push(vx);
-      ys.push(vy);
-    } else skipped.push(label);
-  }
+  const { used, skipped, xs, ys } = scalingPoints(cc, q, x);
   const extra = { claimRow: row };
   if (skipped.length > 0) {
     out.push(flagOf(RULES_K.unverifiable, "note", [q, x],
