@@ -1,3 +1,4 @@
+import { FlagMeasures } from "~/components/flag-measures";
 import { useMemo, useState } from "react";
 import { Link, useFetcher } from "react-router";
 import { AdvisoryNote } from "~/components/advisory-note";
@@ -124,24 +125,7 @@ export function FlagsPanel({ flags, runLabels, claims, runHref, claimHref, answe
                 </div>
                 <p className="mt-1">{f.message}</p>
                 <dl className="mt-1 grid grid-cols-[auto_1fr] gap-x-3 text-caption">
-                  {f.expected !== null ? (
-                    <>
-                      <dt className="font-semibold">expected</dt>
-                      <dd>{f.expected}</dd>
-                    </>
-                  ) : null}
-                  {f.found !== null ? (
-                    <>
-                      <dt className="font-semibold">found</dt>
-                      <dd>{f.found}</dd>
-                    </>
-                  ) : null}
-                  {f.tolerance !== null ? (
-                    <>
-                      <dt className="font-semibold">tolerance</dt>
-                      <dd>{f.tolerance}</dd>
-                    </>
-                  ) : null}
+                  <FlagMeasures flag={f} lowercase />
                   <dt className="font-semibold">rule</dt>
                   <dd>{f.explanation}</dd>
                   <dt className="font-semibold">source</dt>
