@@ -1,3 +1,4 @@
+import { FlagMeasures } from "~/components/flag-measures";
 import { memo, useCallback, useEffect, useMemo, useRef, useState, type ReactNode } from "react";
 import { href, Link, useFetcher, useSearchParams, useSubmit } from "react-router";
 import { AdvisoryNote } from "~/components/advisory-note";
@@ -161,24 +162,7 @@ const FlagRow = memo(function FlagRow(p: RowProps) {
             <p>{f.message}</p>
             <p className="mt-1 font-semibold">{f.ruleTitle}</p>
             <dl className="mt-1 grid grid-cols-[auto_1fr] gap-x-3 text-caption">
-              {f.expected !== null ? (
-                <>
-                  <dt className="font-semibold">Expected</dt>
-                  <dd>{f.expected}</dd>
-                </>
-              ) : null}
-              {f.found !== null ? (
-                <>
-                  <dt className="font-semibold">Found</dt>
-                  <dd>{f.found}</dd>
-                </>
-              ) : null}
-              {f.tolerance !== null ? (
-                <>
-                  <dt className="font-semibold">Tolerance</dt>
-                  <dd>{f.tolerance}</dd>
-                </>
-              ) : null}
+              <FlagMeasures flag={f} />
               {f.claimTitle ? (
                 <>
                   <dt className="font-semibold">Claim</dt>
@@ -278,7 +262,16 @@ const FlagRow = memo(function FlagRow(p: RowProps) {
 export function FlagsTable({ flags, mode, runHref, title = "Flags" }: { flags: FlagView[]; mode: Mode; runHref?: (label: string) => string; title?: string }) {
   const [params, setParams] = useSearchParams();
   const query = parseFlagQuery(params);
-  const setQuery = (q: Partial<FlagQuery>) => setParams((prev) => withFlagQuery(prev, { ...parseFlagQuery(prev), ...q }), { replace: true, preventScrollReset: true });
+  // From the address as it is now: two quick changes (grouping, then a filter) must not undo each other,
+  // and the `prev` React Router passes is the one of the last render.
+  const setQuery = (q: Partial<FlagQuery>) =>
+    setParams(
+      (prev) => {
+        const now = typeof window === "undefined" ? prev : new URLSearchParams(window.location.search);
+        return withFlagQuery(now, { ...parseFlagQuery(now), ...q });
+      },
+      { replace: true, preventScrollReset: true },
+    );
 
   // Verdicts saved in this visit (the page does not reload its data after each verdict).
   const [savedHere, setSavedHere] = useState<ReviewerVerdicts>({});
