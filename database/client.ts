@@ -22,6 +22,39 @@ export function createDatabase(url: string, max = 10) {
       sent.__runproofSqlStatements = (sent.__runproofSqlStatements ?? 0) + 1;
     },
   });
-  const db = drizzle(sql, { schema });
+  const db = drizzle(preparedStatements(sql), { schema });
   return { sql, db };
+}
+
+/**
+ * The ORM sends each query as an unnamed statement, which PostgreSQL parses and plans on every
+ * execution; for a page's short queries that planning is most of the database's work. Named
+ * statements (the driver keeps one per distinct query text on each connection) are parsed once
+ * and their plans reused. Transactions get the same treatment through `begin`.
+ */
+function preparedStatements(sql: postgres.Sql): postgres.Sql {
+  const wrap = <T extends postgres.Sql | postgres.TransactionSql>(client: T): T =>
+    new Proxy(client, {
+      get(target, prop, receiver) {
+        if (prop === "unsafe") {
+          return (query: string, args?: postgres.ParameterOrJSON<never>[], options?: postgres.UnsafeQueryOptions) =>
+            // A text without parameters may hold several statements (migrations), which cannot be prepared.
+            target.unsafe(query, args, args?.length ? { ...options, prepare: true } : options);
+        }
+        if (prop === "begin") {
+          return (...args: unknown[]) => {
+            const fn = args.pop() as (tx: postgres.TransactionSql) => unknown;
+            return (target as postgres.Sql).begin(...(args as [string]), (tx) => fn(wrap(tx)));
+          };
+        }
+        if (prop === "savepoint") {
+          return (...args: unknown[]) => {
+            const fn = args.pop() as (tx: postgres.TransactionSql) => unknown;
+            return (target as postgres.TransactionSql).savepoint(...(args as [string]), (tx) => fn(wrap(tx)));
+          };
+        }
+        return Reflect.get(target, prop, receiver);
+      },
+    });
+  return wrap(sql);
 }
