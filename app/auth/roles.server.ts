@@ -1,5 +1,7 @@
 import { eq, sql } from "drizzle-orm";
+import type { RouterContextProvider } from "react-router";
 import type { Database } from "~db/client";
+import { memo } from "~/access/request-memo.server";
 import { submissionMembers, venueMembers, venues } from "~db/schema";
 
 export type RoleSummary = {
@@ -23,6 +25,11 @@ export async function roleSummary(db: Database, user: { id: string; role?: strin
       .groupBy(submissionMembers.role),
   ]);
   return { admin: user.role === "admin", editorOf, submissionRoles: counts };
+}
+
+/** The same summary, read once per request however many loaders of it ask (header and dashboard). */
+export function requestRoleSummary(context: Pick<RouterContextProvider, "get">, db: Database, user: { id: string; role?: string | null }) {
+  return memo(context, `role-summary:${user.id}`, () => roleSummary(db, user));
 }
 
 export function roleLabels(summary: RoleSummary): string[] {

@@ -1,6 +1,7 @@
 import { and, count, desc, eq, inArray, lt, or, sql, type SQL } from "drizzle-orm";
 import type { Database } from "~db/client";
-import { rounds, submissionMembers, submissions, venueMembers, venues } from "~db/schema";
+import { rounds, submissionMembers, submissions, venues } from "~db/schema";
+import type { RoleSummary } from "~/auth/roles.server";
 
 export type DashboardItem = { id: string; title: string; stage: string; venueName: string; venueId: string };
 /** One page of a dashboard list: its items, how many there are in all, and the next page's cursor. */
@@ -33,8 +34,8 @@ type Cursor = ReturnType<typeof parseListCursor>;
 const after = (c: Cursor): SQL | undefined =>
   c ? or(lt(submissions.updatedAt, c.updatedAt), and(eq(submissions.updatedAt, c.updatedAt), lt(submissions.id, c.id))) : undefined;
 
-async function page(rows: Promise<(DashboardItem & { updatedAt: Date })[]>, total: Promise<{ n: number }[]>): Promise<DashboardList> {
-  const [r, [t]] = await Promise.all([rows, total]);
+async function page(rows: Promise<(DashboardItem & { updatedAt: Date })[]>, total: number | Promise<{ n: number }[]>): Promise<DashboardList> {
+  const [r, t] = await Promise.all([rows, typeof total === "number" ? { n: total } : total.then(([first]) => first)]);
   const items = r.slice(0, DASHBOARD_PAGE_SIZE);
   const last = items[items.length - 1];
   return {
@@ -44,8 +45,9 @@ async function page(rows: Promise<(DashboardItem & { updatedAt: Date })[]>, tota
   };
 }
 
-function byMembership(db: Database, userId: string, role: "author" | "co-author" | "reviewer", cursor: Cursor) {
+function byMembership(db: Database, userId: string, role: "author" | "co-author" | "reviewer", cursor: Cursor, roles: RoleSummary) {
   const where = and(eq(submissionMembers.userId, userId), eq(submissionMembers.role, role));
+  const total = roles.submissionRoles.find((r) => r.role === role)?.count ?? 0;
   return page(
     db
       .select(role === "reviewer" ? { ...itemColumns, title: sentTitle } : itemColumns)
@@ -55,26 +57,24 @@ function byMembership(db: Database, userId: string, role: "author" | "co-author"
       .where(and(where, after(cursor)))
       .orderBy(desc(submissions.updatedAt), desc(submissions.id))
       .limit(DASHBOARD_PAGE_SIZE + 1),
-    db.select({ n: count() }).from(submissionMembers).where(where),
+    total,
   );
 }
 
 /**
  * One list per role the person holds (a role they do not hold is simply empty), each paged with
  * a keyset cursor on (updated, id): a page costs the same however many submissions there are.
+ * The venues they edit and their counts per role come from the request's role summary (the header
+ * reads the same), so they are not read twice.
  */
-export async function dashboardFor(db: Database, userId: string, cursors: Partial<Record<DashboardListName, Cursor>> = {}) {
-  const editorVenues = await db
-    .select({ id: venues.id, name: venues.name })
-    .from(venueMembers)
-    .innerJoin(venues, eq(venues.id, venueMembers.venueId))
-    .where(and(eq(venueMembers.userId, userId), eq(venueMembers.role, "editor")));
+export async function dashboardFor(db: Database, userId: string, roles: RoleSummary, cursors: Partial<Record<DashboardListName, Cursor>> = {}) {
+  const editorVenues = roles.editorOf;
   const venueIds = editorVenues.map((v) => v.id);
   const editingWhere = and(inArray(submissions.venueId, venueIds), inArray(submissions.stage, ["with-editor", "in-review"]));
   const [authored, coAuthored, reviewing, editing] = await Promise.all([
-    byMembership(db, userId, "author", cursors.authored ?? null),
-    byMembership(db, userId, "co-author", cursors.coAuthored ?? null),
-    byMembership(db, userId, "reviewer", cursors.reviewing ?? null),
+    byMembership(db, userId, "author", cursors.authored ?? null, roles),
+    byMembership(db, userId, "co-author", cursors.coAuthored ?? null, roles),
+    byMembership(db, userId, "reviewer", cursors.reviewing ?? null, roles),
     venueIds.length
       ? page(
           db

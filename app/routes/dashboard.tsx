@@ -1,5 +1,6 @@
 import { href, Link } from "react-router";
 import { requireUser } from "~/access/session.server";
+import { requestRoleSummary } from "~/auth/roles.server";
 import { openVenues } from "~/workspace/submissions.server";
 import { DASHBOARD_LISTS, dashboardFor, parseListCursor, type DashboardList } from "~/dashboard/queries.server";
 import { myDecisions, myInvitations, myReviews, parseReviewCursor } from "~/review/dashboard.server";
@@ -14,7 +15,7 @@ export async function loader(args: Route.LoaderArgs) {
   const url = new URL(args.request.url);
   const cursors = Object.fromEntries(DASHBOARD_LISTS.map((l) => [l, parseListCursor(url.searchParams.get(`after-${l}`))]));
   const [lists, reviews, venuesOpen, decisions, invited] = await Promise.all([
-    dashboardFor(db, user.id, cursors),
+    requestRoleSummary(args.context, db, user).then((roles) => dashboardFor(db, user.id, roles, cursors)),
     myReviews(db, user.id, parseReviewCursor(url.searchParams.get("after-reviews"))),
     openVenues(db),
     myDecisions(db, user.id),

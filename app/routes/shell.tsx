@@ -1,6 +1,6 @@
 import { Outlet, useRouteLoaderData } from "react-router";
 import { sessionUser } from "~/access/session.server";
-import { roleLabels, roleSummary } from "~/auth/roles.server";
+import { requestRoleSummary, roleLabels } from "~/auth/roles.server";
 import { dbContext } from "~/db.server";
 import { ErrorView } from "~/components/error-view";
 import { SiteHeader } from "~/components/site-header";
@@ -10,7 +10,7 @@ import type { Route } from "./+types/shell";
 export async function loader({ request, context }: Route.LoaderArgs) {
   const user = await sessionUser({ request, context });
   if (!user) return { viewer: null };
-  const summary = await roleSummary(context.get(dbContext), user);
+  const summary = await requestRoleSummary(context, context.get(dbContext), user);
   return { viewer: { name: user.name, email: user.email, roles: roleLabels(summary), admin: summary.admin } };
 }
 

@@ -4,6 +4,7 @@ import { demoStages, demoSubmission } from "~db/demo-data";
 import { auditLog, flags, invitations, reviews, roundRuns, rounds, submissions, user, venues } from "~db/schema";
 import { seed } from "~db/seed";
 import { dashboardFor } from "~/dashboard/queries.server";
+import { roleSummary } from "~/auth/roles.server";
 import { myReviews } from "~/review/dashboard.server";
 import { deskQueue } from "~/review/desk.server";
 import { seedDemoRound } from "~db/seed-round";
@@ -86,7 +87,7 @@ describe("the seeded demo", () => {
 
     // Something to do for each sign-in listed in the README.
     for (const key of ["author", "coauthor1", "coauthor2"]) {
-      const d = await dashboardFor(db, id(key));
+      const d = await dashboardFor(db, id(key), await roleSummary(db, { id: id(key) }));
       expect([...d.authored.items, ...d.coAuthored.items].some((s) => s.stage === "draft"), `${key} has a draft to work on`).toBe(true);
     }
     for (const key of ["reviewer1", "reviewer2"]) expect((await myReviews(db, id(key))).items.some((r) => r.state === "in-progress"), `${key} has a report to write`).toBe(true);
