@@ -84,7 +84,7 @@ async function main() {
   const w = await seedBase(db, SMALL);
   console.log(`small size seeded in ${((Date.now() - t) / 1000).toFixed(0)} s`);
   const env = { DATABASE_URL: benchUrl, NODE_ENV: "production", JOBS_QUEUE: "true", PORT: String(PORT), HOST: "127.0.0.1", APP_URL: BASE, AUTH_RATE_LIMIT: "false", AUTH_SECRET, LOOP_STATS_FILE: STATS_FILE, LOG_LEVEL: "warn" };
-  const server = start("server", ["--import", "./scripts/bench/loop-monitor.mjs", "scripts/serve.mjs"], env);
+  const server = start("server", ["--max-semi-space-size=64", "--import", "./scripts/bench/loop-monitor.mjs", "scripts/serve.mjs"], env);
   const worker = start("worker", ["--max-old-space-size=768", "--import", "tsx", "scripts/worker.ts"], env);
   const stopAll = () => {
     server.kill("SIGTERM");
