@@ -76,7 +76,7 @@ async function main() {
     const count = (pred: (s: number) => boolean) => reports.reduce((n, r) => n + Object.entries(r.statuses).filter(([s]) => pred(Number(s))).reduce((m, [, k]) => m + k, 0), 0);
     const fiveHundreds = findings.filter((f) => f.status >= 500).length;
     const leftRows = findings.filter((f) => f.what.startsWith("rows changed")).length;
-    const rows = reports.map((r) => `| ${r.who} | \`${r.file.replace(/^routes\//, "")}\`${r.url.startsWith("/api/auth") ? ` (${r.url})` : ""} | ${r.cases} | ${Object.entries(r.statuses).map(([s, n]) => `${s}×${n}`).join(" ")} |`);
+    const rows = reports.map((r) => `| ${r.who} | \`${r.file.replace(/^routes\//, "")}\`${r.url.startsWith("/api/auth") ? ` (${r.url})` : ""}${r.method === "POST" ? "" : ` (${r.method})`} | ${r.cases} | ${Object.entries(r.statuses).map(([s, n]) => `${s}×${n}`).join(" ")} |`);
     const out = `${total.toLocaleString("en")} requests to ${reports.length} actions (${cases} per action) in ${minutes.toFixed(1)} min, load average ${load0.toFixed(2)} → ${loadavg()[0]!.toFixed(2)} (2 cores):
 responses ≥ 500: **${fiveHundreds}**; refused requests that left rows: **${leftRows}**; error lines in the server's and worker's logs: **${bad.length}**; both processes alive at the end: **${alive ? "yes" : "no"}**. Accepted (< 400): ${count((s) => s < 400)}, refused (4xx): ${count((s) => s >= 400 && s < 500)}.
 

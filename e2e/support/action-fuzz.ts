@@ -14,7 +14,10 @@ import type { AccessWorld, Persona } from "./make-access-world";
 
 type Cell = AccessWorld["cells"]["single"]["draft"];
 export type Who = Persona | "anonymous";
-export type Target = { file: string; url: string; who: Who; intents: string[]; body: "form" | "json"; token?: boolean };
+export type Target = { file: string; url: string; who: Who; intents: string[]; body: "form" | "json"; token?: boolean; method?: "POST" | "PUT" };
+
+/** API actions whose only write is a PUT (a new version of the resource); every other action takes POST. */
+const PUT_ACTIONS = new Set(["routes/api/v1/run.ts", "routes/api/v1/claim.ts"]);
 
 /**
  * Tables that change without the request under test writing them: sessions and rate-limit
@@ -86,6 +89,7 @@ export function actionTargets(world: AccessWorld): Target[] {
       intents: intentsOf(r.file),
       body: api ? "json" : "form",
       token: api && r.file !== "routes/api/v1/check.ts",
+      method: PUT_ACTIONS.has(r.file) ? "PUT" : "POST",
     });
   }
   return out;
@@ -220,7 +224,7 @@ export async function rowCounts(sql: Sql): Promise<Record<string, number>> {
 }
 
 export type Finding = { target: string; status: number; what: string; request: string };
-export type TargetReport = { file: string; url: string; who: Who; cases: number; statuses: Record<number, number> };
+export type TargetReport = { file: string; url: string; who: Who; method: string; cases: number; statuses: Record<number, number> };
 
 export async function fuzzActions(opts: {
   origin: string;
@@ -239,7 +243,7 @@ export async function fuzzActions(opts: {
   let counts = await rowCounts(opts.sql);
   for (const target of opts.targets) {
     const session = opts.sessions[target.who];
-    const report: TargetReport = { file: target.file, url: target.url, who: target.who, cases: 0, statuses: {} };
+    const report: TargetReport = { file: target.file, url: target.url, who: target.who, method: target.method ?? "POST", cases: 0, statuses: {} };
     const cases = fc.sample(caseArb(target, opts.ids), { numRuns: opts.numRuns, seed: opts.seed });
     for (const c of cases) {
       if (opts.alive && !opts.alive()) {
@@ -251,12 +255,14 @@ export async function fuzzActions(opts: {
       if (type) headers["content-type"] = type;
       if (session?.cookie && !target.token) headers.cookie = session.cookie;
       if (target.token && session?.token) headers.authorization = `Bearer ${session.token}`;
+      // A PUT names the version it edited, in If-Match or in the body: half the cases send a header.
+      if (target.method === "PUT" && c.multipart) headers["if-match"] = (c.fields[0]?.[1] ?? '"1"').replace(/[^\x20-\x7e]/g, "").slice(0, 200);
       const shown = typeof body === "string" ? body.slice(0, 300) : JSON.stringify(c.fields).slice(0, 300);
       let status = 0;
       let text = "";
       for (let attempt = 0; attempt < 2; attempt++) {
         try {
-          const res = await fetch(`${opts.origin}${target.url}`, { method: "POST", headers, body, redirect: "manual" });
+          const res = await fetch(`${opts.origin}${target.url}`, { method: target.method ?? "POST", headers, body, redirect: "manual" });
           status = res.status;
           text = await res.text();
           break;
@@ -277,7 +283,7 @@ export async function fuzzActions(opts: {
       }
       counts = after;
     }
-    opts.log?.(`${target.who} POST ${target.url}: ${report.cases} cases, ${JSON.stringify(report.statuses)}`);
+    opts.log?.(`${target.who} ${target.method ?? "POST"} ${target.url}: ${report.cases} cases, ${JSON.stringify(report.statuses)}`);
     reports.push(report);
   }
   return { findings, reports };
