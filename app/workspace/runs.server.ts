@@ -1,4 +1,4 @@
-import { and, desc, eq, max } from "drizzle-orm";
+import { and, desc, eq, inArray, max } from "drizzle-orm";
 import { attachments, roundRuns, runs, runVersions } from "~db/schema";
 import { runSchema, type RunRecord } from "~/checker/schema";
 import { zodIssues } from "./zod-issues";
@@ -84,8 +84,7 @@ export async function reviseRun(
   return { run, version: version! };
 }
 
-/** The runs of a round with the version the round uses. */
-export async function roundRunList(db: Tx | import("~db/client").Database, roundId: string) {
+function roundRunRows(db: Tx | import("~db/client").Database) {
   return db
     .select({
       runId: runs.id,
@@ -99,9 +98,28 @@ export async function roundRunList(db: Tx | import("~db/client").Database, round
     })
     .from(roundRuns)
     .innerJoin(runs, eq(runs.id, roundRuns.runId))
-    .innerJoin(runVersions, eq(runVersions.id, roundRuns.runVersionId))
-    .where(eq(roundRuns.roundId, roundId))
-    .orderBy(runs.label);
+    .innerJoin(runVersions, eq(runVersions.id, roundRuns.runVersionId));
+}
+
+/** The runs of a round with the version the round uses. */
+export async function roundRunList(db: Tx | import("~db/client").Database, roundId: string) {
+  return roundRunRows(db).where(eq(roundRuns.roundId, roundId)).orderBy(runs.label);
+}
+
+/** The runs of a round by label only (links and pickers): no records read. */
+export async function roundRunLabels(db: Tx | import("~db/client").Database, roundId: string) {
+  return db.select({ runId: runs.id, label: runs.label }).from(roundRuns).innerJoin(runs, eq(runs.id, roundRuns.runId)).where(eq(roundRuns.roundId, roundId)).orderBy(runs.label);
+}
+
+/** The runs of a round with the given labels, with the version the round uses. */
+export async function roundRunsLabelled(db: Tx | import("~db/client").Database, roundId: string, labels: string[]) {
+  return labels.length ? roundRunRows(db).where(and(eq(roundRuns.roundId, roundId), inArray(runs.label, labels))).orderBy(runs.label) : [];
+}
+
+/** One run of a round with the version the round uses, or undefined when the round has no such run. */
+export async function roundRun(db: Tx | import("~db/client").Database, roundId: string, runId: string) {
+  const [run] = await roundRunRows(db).where(and(eq(roundRuns.roundId, roundId), eq(roundRuns.runId, runId)));
+  return run;
 }
 
 export async function runVersionHistory(db: import("~db/client").Database, runId: string) {

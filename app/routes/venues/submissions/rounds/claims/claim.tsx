@@ -7,7 +7,7 @@ import { serviceError } from "~/workspace/action-errors.server";
 import { requireRound } from "~/access/page-guards.server";
 import { roundFlags } from "~/workspace/flags-query.server";
 import { changeClaim, parseJsonText, removeClaim } from "~/workspace/run-edits.server";
-import { roundRunList } from "~/workspace/runs.server";
+import { roundRunLabels, roundRunsLabelled, type roundRunList } from "~/workspace/runs.server";
 import { runPlotsMany } from "~/workspace/round-data.server";
 import { ComparisonChart } from "~/components/workspace/lazy-plots";
 import { StatedTable } from "~/components/workspace/stated-table";
@@ -26,10 +26,13 @@ export async function loader(args: Route.LoaderArgs) {
   const { db, access } = await requireRound(args, "read-claims");
   const { round } = access;
   const claim = await claimOfRound(db, round.id, args.params.claimId);
-  const [runs, flags] = await Promise.all([roundRunList(db, round.id), roundFlags(db, round.id)]);
   // The runs of the claim with an attached series, overlaid on one plot (stored downsampled copies).
-  const named = new Set(((claim.record as { runs?: { label: string }[] }).runs ?? []).map((r) => r.label));
-  const claimRuns = runs.filter((r) => named.has(r.label));
+  const named = [...new Set(((claim.record as { runs?: { label: string }[] }).runs ?? []).map((r) => r.label))].slice(0, 200);
+  const [runs, flags, claimRuns] = await Promise.all([
+    roundRunLabels(db, round.id),
+    roundFlags(db, round.id, { claimId: claim.id }),
+    named.length > 1 ? roundRunsLabelled(db, round.id, named) : [],
+  ]);
   const plots = claimRuns.length > 1 ? await runPlotsMany(db, claimRuns.map((r) => ({ versionId: r.versionId, label: r.label, record: r.record }))) : [];
   return {
     stated: claim.checkedKey === null ? null : (claim.statedResults ?? null),
@@ -37,7 +40,7 @@ export async function loader(args: Route.LoaderArgs) {
     checkError: round!.checkError,
     claim: { id: claim.id, version: claim.version, figure: claim.figure, statement: claim.statement, record: claim.record },
     runs: runs.map((r) => ({ id: r.runId, label: r.label })),
-    flags: flags.filter((f) => f.claimId === claim.id),
+    flags,
     canEdit: access.can("write-claims"),
   };
 }

@@ -1,4 +1,4 @@
-import { eq } from "drizzle-orm";
+import { and, eq, isNotNull, sql } from "drizzle-orm";
 import { href, Link, redirect } from "react-router";
 import { flags } from "~db/schema";
 import { ClaimEditor, claimDraftOf } from "~/components/workspace/claim-editor";
@@ -6,7 +6,7 @@ import { serviceError } from "~/workspace/action-errors.server";
 import { requireRound } from "~/access/page-guards.server";
 import { roundClaims } from "~/workspace/claims.server";
 import { addClaim, parseJsonText } from "~/workspace/run-edits.server";
-import { roundRunList } from "~/workspace/runs.server";
+import { roundRunLabels } from "~/workspace/runs.server";
 import type { Route } from "./+types/index";
 
 export const meta: Route.MetaFunction = () => [{ title: "Claims · Runproof" }];
@@ -16,17 +16,22 @@ export async function loader(args: Route.LoaderArgs) {
   const { round } = access;
   const [claims, runs, flagRows] = await Promise.all([
     roundClaims(db, round.id),
-    roundRunList(db, round.id),
-    db.select({ claimId: flags.claimId, severity: flags.severity }).from(flags).where(eq(flags.roundId, round.id)),
+    roundRunLabels(db, round.id),
+    db
+      .select({ claimId: flags.claimId, all: sql<number>`count(*)::int`, mismatches: sql<number>`(count(*) filter (where ${flags.severity} = 'mismatch'))::int` })
+      .from(flags)
+      .where(and(eq(flags.roundId, round.id), isNotNull(flags.claimId)))
+      .groupBy(flags.claimId),
   ]);
+  const counts = new Map(flagRows.map((f) => [f.claimId, f]));
   return {
     claims: claims.map((c) => ({
       id: c.id,
       figure: c.figure,
       title: (c.record as { title?: string }).title ?? "",
       runs: ((c.record as { runs?: { label: string; part: string }[] }).runs ?? []).map((r) => `${r.label} (${r.part})`).join(", "),
-      mismatches: flagRows.filter((f) => f.claimId === c.id && f.severity === "mismatch").length,
-      flags: flagRows.filter((f) => f.claimId === c.id).length,
+      mismatches: counts.get(c.id)?.mismatches ?? 0,
+      flags: counts.get(c.id)?.all ?? 0,
     })),
     runLabels: runs.map((r) => r.label),
     canEdit: access.can("write-claims"),

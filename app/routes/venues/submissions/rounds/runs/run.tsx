@@ -13,7 +13,7 @@ import { DERIVED_LABELS, recordLines } from "~/review/pdf/run-record";
 import { sig4 } from "~/lib/sig-figs";
 import { fieldId, fieldForQuantity, formToRecord, recordToValues } from "~/workspace/run-form-fields";
 import { editRun } from "~/workspace/run-edits.server";
-import { roundRunList, runVersionHistory } from "~/workspace/runs.server";
+import { roundRun, runVersionHistory } from "~/workspace/runs.server";
 import { claimsNamingRun, deleteRun } from "~/workspace/removals.server";
 import { duplicateRun } from "~/workspace/run-template.server";
 import { savedSeriesMaps } from "~/workspace/series-maps.server";
@@ -24,8 +24,8 @@ import type { Route } from "./+types/run";
 
 export const meta: Route.MetaFunction = ({ data }) => [{ title: `Run ${data?.run.label ?? ""} · Runproof` }];
 
-async function runOfRound(db: Parameters<typeof roundRunList>[0], roundId: string, runId: string) {
-  const run = (await roundRunList(db, roundId)).find((r) => r.runId === runId);
+async function runOfRound(db: Parameters<typeof roundRun>[0], roundId: string, runId: string) {
+  const run = await roundRun(db, roundId, runId);
   if (!run) throw data("Not found", { status: 404 });
   return run;
 }
@@ -51,7 +51,7 @@ export async function loader(args: Route.LoaderArgs) {
   const [history, plots, flags, derived] = await Promise.all([
     runVersionHistory(db, run.runId),
     runPlots(db, run.versionId, run.record as RunRecord),
-    roundFlags(db, round.id),
+    roundFlags(db, round.id, { runLabel: run.label }),
     storedDerived(db, run.versionId),
   ]);
   // The recomputed values as the check job stored them for this run version (nothing is recomputed here).
@@ -87,7 +87,7 @@ export async function loader(args: Route.LoaderArgs) {
     plots,
     recomputed,
     groups: recordLines(run.record),
-    flags: flags.filter((f) => f.runLabel === run.label),
+    flags,
     canEdit: access.can("write-runs"),
     seriesMaps: access.can("write-runs") ? await savedSeriesMaps(db, access.submission.id) : {},
     copiedFrom: new URL(args.request.url).searchParams.get("copied")?.slice(0, 200) ?? null,
