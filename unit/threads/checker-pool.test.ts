@@ -13,7 +13,9 @@ import { check } from "~/checker";
 import { analyseColumns } from "~/workspace/attachment-analysis";
 import * as checkRoute from "~/routes/api/v1/check";
 import { CHECKER_THREAD_LIMITS, CheckerBusy, CheckerOverBudget, CheckerPool, transferablesOf } from "~/threads/checker-pool.server";
-import type { CheckerTask } from "~/threads/checker-tasks";
+import { fromWire, toWire, type CheckerTask } from "~/threads/checker-tasks";
+import { CheckInputError, ClaimCheckError } from "~/checker";
+import { describeCheckFailure } from "~/workspace/recheck.server";
 import { call } from "../api/fixture";
 import type { HogTask } from "./hog-thread";
 
@@ -190,5 +192,20 @@ describe("POST /api/v1/check through the pool", () => {
     expect(body.details[0].message).toMatch(/fewer runs.*command-line checker/);
     // Ready API errors still pass through untouched.
     expect((await toApiResponse(apiError(413, "body_too_large", "x"))).status).toBe(413);
+  });
+});
+
+describe("errors across the thread boundary", () => {
+  it("keep the checker's classes, so a round check names the run or claim at fault", () => {
+    const input = new CheckInputError([{ path: "runs[0].controls.E", message: "must be positive" }]);
+    const back = fromWire(structuredClone(toWire(new ClaimCheckError(1, input))));
+    expect(back).toBeInstanceOf(ClaimCheckError);
+    expect((back as ClaimCheckError).inner).toBeInstanceOf(CheckInputError);
+    expect(describeCheckFailure(back, ["ref-A"], ["Fig. 2", "Fig. 3"])).toBe('In the claim "Fig. 3": run "ref-A", controls.E: must be positive. Correct it and the round is checked again.');
+  });
+  it("a round check stopped by its thread's limits says what was exceeded and what to do", () => {
+    const text = describeCheckFailure(new CheckerOverBudget("time", "60 s"), ["ref-A"]);
+    expect(text).toMatch(/needed more time than the 60 s one check may use/);
+    expect(text).toMatch(/Make the series shorter .* checked again after the next change/);
   });
 });
