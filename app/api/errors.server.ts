@@ -1,4 +1,5 @@
 import { isRouteErrorResponse } from "react-router";
+import { DATABASE_RETRY_AFTER_SECONDS, DATABASE_UNAVAILABLE_MESSAGE, isDatabaseUnavailable } from "~/lib/database-unavailable";
 import { CheckerBusy, CheckerOverBudget } from "~/threads/checker-pool.server";
 import { InvalidInput, PayloadTooLarge, StateConflict, StorageUnavailable } from "~/workspace/types";
 
@@ -21,6 +22,11 @@ const CODE_OF_STATUS: Record<number, string> = {
   503: "unavailable",
 };
 
+/** The API's answer while PostgreSQL cannot be reached (restarting, down): 503, try again shortly. */
+export function databaseUnavailableApiError() {
+  return apiError(503, "database_unavailable", DATABASE_UNAVAILABLE_MESSAGE, [], { "retry-after": String(DATABASE_RETRY_AFTER_SECONDS) });
+}
+
 /** How a check stopped by its thread's limits is explained: what was exceeded and what to do. */
 export function overBudgetApiError(e: CheckerOverBudget) {
   return apiError(422, "too_large_to_check", `The input is too large to check here: ${e.message}. Nothing was stored.`, [
@@ -35,7 +41,7 @@ export function overBudgetApiError(e: CheckerOverBudget) {
 /**
  * Turns anything a handler throws into the API's error shape: the workspace's domain errors,
  * the guards' `data("Not found", 404)` responses, and ready API responses pass through.
- * A busy checker pool answers 503 with Retry-After, a check stopped
+ * A busy checker pool and an unreachable database answer 503 with Retry-After, a check stopped
  * by its thread's limits 422. Unknown errors are rethrown so the server logs them and answers 500.
  */
 export async function toApiResponse(thrown: unknown): Promise<Response> {
@@ -47,6 +53,7 @@ export async function toApiResponse(thrown: unknown): Promise<Response> {
     return apiError(503, "checker_busy", `Every checker thread is busy (${thrown.message}); send the same request again in a few seconds.`, [], { "retry-after": "5" });
   }
   if (thrown instanceof CheckerOverBudget) return overBudgetApiError(thrown);
+  if (isDatabaseUnavailable(thrown)) return databaseUnavailableApiError();
   if (thrown instanceof Response) {
     if ((thrown.headers.get("content-type") ?? "").includes("application/json")) {
       const body = await thrown.clone().json().catch(() => null);
