@@ -238,7 +238,12 @@ describe("a worker is killed in the middle of a check", () => {
       // (the queue's own is QUEUE_SETTINGS: 15 minutes).
       await boss.send(QUEUES.recheck, { roundId: fx.roundId }, { singletonKey: fx.roundId, expireInSeconds: 10, retryLimit: QUEUE_SETTINGS[QUEUES.recheck].retryLimit, retryDelay: 1 });
       const jobs = () => sql<{ id: string; state: string; retry_count: number }[]>`select id, state, retry_count from pgboss.job where name = ${QUEUES.recheck} and singleton_key = ${fx.roundId} order by created_on`;
-      await waitFor("the check to start", async () => (await jobs()).some((j) => j.state === "active"), 60_000, 50);
+      await waitFor("the check to start", async () => (await jobs()).some((j) => j.state === "active"), 60_000, 50).catch((e: unknown) => {
+        if (worker.child.exitCode !== null || worker.child.signalCode !== null) {
+          throw new Error(`the worker had exited before this test (code ${worker.child.exitCode ?? worker.child.signalCode}); its last lines:\n${worker.log.slice(-40).join("\n")}`);
+        }
+        throw new Error(`${e instanceof Error ? e.message : e}; the worker's last lines:\n${worker.log.slice(-12).join("\n")}`);
+      });
       await sleep(300);
       worker.child.kill("SIGKILL");
       await waitFor("the worker to die", () => worker.child.exitCode !== null || worker.child.signalCode !== null, 10_000);
