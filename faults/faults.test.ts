@@ -242,7 +242,7 @@ describe("a worker is killed in the middle of a check", () => {
         if (worker.child.exitCode !== null || worker.child.signalCode !== null) {
           throw new Error(`the worker had exited before this test (code ${worker.child.exitCode ?? worker.child.signalCode}); its last lines:\n${worker.log.slice(-40).join("\n")}`);
         }
-        throw new Error(`${e instanceof Error ? e.message : e}; the worker's last lines:\n${worker.log.slice(-12).join("\n")}`);
+        throw new Error(`${e instanceof Error ? e.message : e}; the worker's last lines:\n${worker.log.slice(-40).join("\n")}`);
       });
       await sleep(300);
       worker.child.kill("SIGKILL");
