@@ -3,15 +3,18 @@ import tailwindcss from "@tailwindcss/vite";
 import { defineConfig, type Plugin } from "vite";
 import { fileURLToPath } from "node:url";
 
-/** The production build also bundles the command-line checker the help pages offer (scripts/build-cli.mjs). */
+/**
+ * The production build also bundles the command-line checker the help pages offer and the entry
+ * of the checker threads, beside the server bundle (scripts/build-cli.mjs).
+ */
 function checkerCliBundle(): Plugin {
   return {
     name: "runproof-checker-cli",
     apply: "build",
     async closeBundle() {
       if (!this.environment || this.environment.name !== "ssr") return;
-      const { buildCli } = await import("./scripts/build-cli.mjs");
-      await buildCli();
+      const { buildCli, buildCheckerThread } = await import("./scripts/build-cli.mjs");
+      await Promise.all([buildCli(), buildCheckerThread()]);
     },
   };
 }

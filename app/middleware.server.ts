@@ -1,7 +1,50 @@
-import { data, type MiddlewareFunction } from "react-router";
-import { apiError } from "~/api/errors.server";
+import { createContext, data, type MiddlewareFunction } from "react-router";
+import { apiError, databaseUnavailableApiError } from "~/api/errors.server";
+import { DATABASE_RETRY_AFTER_SECONDS, DATABASE_UNAVAILABLE_MESSAGE, isDatabaseUnavailable } from "~/lib/database-unavailable";
 import { badParam, findBadText } from "~/lib/edge-input";
 import { db, dbContext } from "./db.server";
+
+/**
+ * Set for a request during which the database could not be reached. `handleError` in
+ * entry.server.tsx sets it (React Router passes it every error a loader, action or middleware
+ * threw, with this request's context), `databaseOutageMiddleware` turns it into the 503.
+ */
+export const databaseOutageContext = createContext<boolean>(false);
+
+/** Records that this request met an unreachable database, when `error` says so. */
+export function noteDatabaseOutage(error: unknown, context: { set: (key: typeof databaseOutageContext, value: boolean) => void }) {
+  if (!isDatabaseUnavailable(error)) return false;
+  context.set(databaseOutageContext, true);
+  return true;
+}
+
+/** The 503 while PostgreSQL cannot be reached: the API's JSON error shape, or the text the error page shows. */
+export function databaseUnavailableResponse(request: Request) {
+  if (new URL(request.url).pathname.startsWith("/api/")) return databaseUnavailableApiError();
+  return new Response(DATABASE_UNAVAILABLE_MESSAGE, {
+    status: 503,
+    headers: { "content-type": "text/plain; charset=utf-8", "retry-after": String(DATABASE_RETRY_AFTER_SECONDS) },
+  });
+}
+
+/**
+ * The first root middleware: a request that met an unreachable database (PostgreSQL down or
+ * restarting) answers 503 with Retry-After instead of 500, wherever the error was thrown. A
+ * loader's or action's error never reaches `next()` (React Router renders the error boundary
+ * and returns that response), so `handleError` marks the request and this middleware throws
+ * the 503 afterwards: pages render the one error view with it, resource routes answer it.
+ */
+export const databaseOutageMiddleware: MiddlewareFunction<Response> = async ({ request, context }, next) => {
+  let response: Response;
+  try {
+    response = await next();
+  } catch (error) {
+    if (!noteDatabaseOutage(error, context)) throw error;
+    throw databaseUnavailableResponse(request);
+  }
+  if (context.get(databaseOutageContext)) throw databaseUnavailableResponse(request);
+  return response;
+};
 
 /** Hands the one database pool to every loader and action through the router context. */
 export const dbMiddleware: MiddlewareFunction<Response> = async ({ context }, next) => {

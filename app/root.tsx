@@ -1,7 +1,7 @@
 import { Links, Meta, Outlet, Scripts, ScrollRestoration } from "react-router";
 import type { Route } from "./+types/root";
 import { requestMemoMiddleware } from "./access/request-memo.server";
-import { dbMiddleware, edgeInputMiddleware } from "./middleware.server";
+import { databaseOutageMiddleware, dbMiddleware, edgeInputMiddleware } from "./middleware.server";
 import { ErrorView } from "./components/error-view";
 import { useNonce } from "./lib/nonce";
 import "./app.css";
@@ -12,7 +12,7 @@ import { z } from "zod";
 // so the probe would be reported as a violation. Plain parsing is fast enough for our forms.
 if (typeof document !== "undefined") z.config({ jitless: true });
 
-export const middleware: Route.MiddlewareFunction[] = [dbMiddleware, edgeInputMiddleware, requestMemoMiddleware];
+export const middleware: Route.MiddlewareFunction[] = [databaseOutageMiddleware, dbMiddleware, edgeInputMiddleware, requestMemoMiddleware];
 
 export const meta: Route.MetaFunction = () => [{ title: "Runproof" }];
 

@@ -35,6 +35,31 @@ export async function buildCli(outfile = CLI_BUNDLE) {
   return outfile;
 }
 
+export const CHECKER_THREAD_BUNDLE = "build/server/checker-thread.mjs";
+
+/**
+ * Bundles the checker threads' entry (app/threads/checker-thread.ts: the checker and the series
+ * analysis, no I/O) for the production server and worker, which load it into worker threads
+ * (app/threads/checker-pool.server.ts). It cannot live inside the server bundle: a worker
+ * thread starts from a file of its own. Not minified, so a stack trace names real functions.
+ */
+export async function buildCheckerThread(outfile = CHECKER_THREAD_BUNDLE) {
+  const root = fileURLToPath(new URL("..", import.meta.url));
+  await build({
+    absWorkingDir: root,
+    entryPoints: ["app/threads/checker-thread.ts"],
+    outfile,
+    bundle: true,
+    platform: "node",
+    target: "node20",
+    format: "esm",
+    logLevel: "warning",
+    alias: { "~": "./app", "~db": "./database" },
+    banner: { js: 'import { createRequire as __runproofRequire } from "node:module"; const require = __runproofRequire(import.meta.url);' },
+  });
+  return outfile;
+}
+
 if (process.argv[1] && fileURLToPath(import.meta.url) === process.argv[1]) {
   const out = await buildCli(process.argv[2]);
   console.log(`checker CLI bundled: ${out}`);

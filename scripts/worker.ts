@@ -1,10 +1,13 @@
 /**
  * npm run worker: one job process (pg-boss) — outbox delivery, reminders, digests and round
- * checks. Start any number of them beside any number of web processes on one database.
+ * checks. Start any number of them beside any number of web processes on one database. The
+ * checker's CPU work (file analyses, a round's evaluation) runs in this process's checker
+ * threads (app/threads/checker-pool.server.ts), each with its own heap limit and time budget.
  */
 import { createDatabase } from "../database/client";
 import { env } from "../app/config/env.server";
 import { startJobs } from "../app/jobs/boss.server";
+import { closeCheckerPool } from "../app/threads/checker-pool.server";
 
 const { db, sql } = createDatabase(env.DATABASE_URL, 4);
 const boss = await startJobs(db, {
@@ -26,7 +29,7 @@ for (const signal of ["SIGTERM", "SIGINT"] as const) {
     void boss
       .stop({ graceful: true, timeout: 10_000, wait: true })
       .catch(() => {})
-      .then(() => sql.end({ timeout: 5 }))
+      .then(() => Promise.all([sql.end({ timeout: 5 }), closeCheckerPool()]))
       .finally(() => process.exit(0));
   });
 }

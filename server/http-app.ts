@@ -6,6 +6,7 @@ import type { Logger } from "pino";
 import { pinoHttp } from "pino-http";
 import type { Registry } from "prom-client";
 import { CLIENT_ADDRESS_HEADER } from "../app/lib/client-address";
+import { DATABASE_RETRY_AFTER_SECONDS, DATABASE_UNAVAILABLE_MESSAGE, isDatabaseUnavailable } from "../app/lib/database-unavailable";
 import {
   SAFE_METHODS,
   acceptsRawBody,
@@ -104,6 +105,9 @@ export function createHttpApp(options: HttpAppOptions) {
         res: (res: { statusCode: number }) => ({ status: res.statusCode }),
       },
       customLogLevel(_req, res, error) {
+        // 503 is a handled "come back shortly" (database restarting, checker threads busy, storage
+        // away), logged as a warning; what caused it is logged where it happened.
+        if (res.statusCode === 503) return "warn";
         if (error || res.statusCode >= 500) return "error";
         return res.statusCode >= 400 ? "warn" : "info";
       },
@@ -205,6 +209,13 @@ export function createHttpApp(options: HttpAppOptions) {
   app.use(options.handler);
 
   const onError: ErrorRequestHandler = (error, req, res, _next) => {
+    // Normally the router's middleware answers an unreachable database; this is the last net.
+    if (isDatabaseUnavailable(error)) {
+      req.log?.warn({ err: { message: (error as Error).message } }, "database unavailable");
+      if (res.headersSent) return res.end();
+      res.set("retry-after", String(DATABASE_RETRY_AFTER_SECONDS));
+      return refuse(req, res, 503, "database_unavailable", DATABASE_UNAVAILABLE_MESSAGE);
+    }
     req.log?.error({ err: error }, "request failed");
     if (res.headersSent) return res.end();
     refuse(req, res, 500, "internal", "Something went wrong on our side; the error was logged.");

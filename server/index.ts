@@ -8,6 +8,7 @@ import { nonceContext } from "~/lib/nonce";
 import { createServerMetrics } from "~/ops/metrics.server";
 import { readinessProbe } from "~/ops/readiness.server";
 import { s3SettingsFromEnv } from "~/storage/s3";
+import { closeCheckerPool } from "~/threads/checker-pool.server";
 import { createHttpApp } from "./http-app";
 
 /**
@@ -37,5 +38,7 @@ export const app = createHttpApp({
   }),
 });
 
-/** Stops the job runner and closes the database pool (after the server has drained its requests). */
-export const shutdown = closeDatabaseAndJobs;
+/** Stops the job runner, closes the database pool and ends the checker threads (after the server has drained its requests). */
+export async function shutdown() {
+  await Promise.all([closeDatabaseAndJobs(), closeCheckerPool()]);
+}

@@ -89,7 +89,13 @@ export const apiPaths: ZodOpenApiPathsObject = {
     post: {
       summary: "Check run records and a claim without storing anything (no token needed)",
       requestBody: { required: true, ...json(s.checkRequestSchema) },
-      responses: { "200": ok("Derived values and flags", s.checkOutputSchema), "400": err("Invalid input"), "413": err("Body too large") },
+      responses: {
+        "200": ok("Derived values and flags", s.checkOutputSchema),
+        "400": err("Invalid input"),
+        "413": err("Body too large"),
+        "422": err("Too large to check: the input needed more memory or time than one check may use"),
+        "503": err("Every checker thread is busy (Retry-After)"),
+      },
     },
   },
   "/api/v1/openapi.json": {

@@ -7,6 +7,7 @@ const byStatus: Record<number, { title: string; hint: string }> = {
   404: { title: "Nothing here", hint: "The address may be mistyped, or the item is not shared with you." },
   409: { title: "Someone changed this first", hint: "Reload the page to see the latest version, then try again." },
   413: { title: "That upload is too large", hint: "Split the file or ask for a higher limit." },
+  503: { title: "Not available for a moment", hint: "Nothing is wrong with your request; reload the page in a few seconds." },
 };
 
 /** Shown by the root error boundary and by nested layouts, so a failure never hides the header. */

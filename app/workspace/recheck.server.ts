@@ -2,13 +2,13 @@ import { createHash } from "node:crypto";
 import { and, eq, inArray, isNull, notInArray, or, sql } from "drizzle-orm";
 import type { Database } from "~db/client";
 import { attachments, claims, flags, roundRuns, rounds, runChecks, storedFiles, submissions, venues, type AttachmentAnalysis } from "~db/schema";
-import { CheckInputError, checkPreparedRound, ClaimCheckError, policySchema, resolvePolicy, type SeriesStats, type StatedComparison } from "~/checker";
+import { CheckInputError, ClaimCheckError, policySchema, resolvePolicy, type SeriesStats, type StatedComparison } from "~/checker";
 import { readSeriesFile, SERIES_FORMATS, type SeriesFormat } from "~/checker/series-formats";
 import type { ClaimRecord, Columns, RunRecord } from "~/checker/schema";
 import type { Derived, Flag } from "~/checker/types";
 import { queueRecheck } from "~/jobs/check-queue.server";
 import { storage } from "~/storage/storage.server";
-import { analyseColumns } from "./attachment-analysis";
+import { CheckerBusy, CheckerOverBudget, runChecker, transferablesOf } from "~/threads/checker-pool.server";
 import { roundRunList } from "./runs.server";
 import type { Db, Tx } from "./types";
 
@@ -44,13 +44,16 @@ export async function roundCheckState(db: Db, roundId: string) {
 
 type FileRow = { id: string; runVersionId: string; kind: "series" | "spectrum"; key: string; analysis: AttachmentAnalysis | null; format: string; sourceMap: string | null; size: number };
 
-/** Analyses a stored file again from object storage (first check after an upgrade, or a changed MSER batch). */
+/**
+ * Analyses a stored file again from object storage (first check after an upgrade, or a changed
+ * MSER batch). The file is read here; the analysis runs in a checker thread, the columns moved to it.
+ */
 async function analyseStored(db: Db, f: FileRow, batch: number): Promise<AttachmentAnalysis> {
   const body = await storage.getStream(f.key);
   const format = (SERIES_FORMATS as readonly string[]).includes(f.format) ? (f.format as SeriesFormat) : "csv";
   // The stored file passed the upload limit on arrival; it is read up to the size recorded then.
   const cols = await readSeriesFile(body as unknown as AsyncIterable<Uint8Array>, { kind: f.kind, format, map: f.sourceMap, limitBytes: f.size });
-  const { analysis, plot } = analyseColumns(f.kind, cols, batch);
+  const { analysis, plot } = await runChecker({ kind: "analyse-file", fileKind: f.kind, columns: cols, batch }, { transferList: transferablesOf(cols) });
   await db.update(attachments).set({ analysis, plot }).where(eq(attachments.id, f.id));
   return analysis;
 }
@@ -75,6 +78,9 @@ export function describeCheckFailure(e: unknown, runLabels: string[], claimNames
   const claim = e instanceof ClaimCheckError ? (claimNames[e.claimIndex] ?? `#${e.claimIndex + 1}`) : null;
   const where = claim !== null ? `In the claim "${claim}": ` : e instanceof FileAnalysisFailure ? `Reading ${e.message}: ` : "";
   const inner = e instanceof ClaimCheckError || e instanceof FileAnalysisFailure ? e.inner : e;
+  if (inner instanceof CheckerOverBudget) {
+    return `${where}${inner.message}. Make the series shorter (for example every n-th row) or split the runs over more rounds; the round is checked again after the next change.`;
+  }
   const named = (text: string) =>
     text
       .replace(/\bruns\[(\d+)\](\.)?/g, (_m, i: string, dot?: string) => `run "${runLabels[Number(i)] ?? `#${Number(i) + 1}`}"${dot ? ", " : ""}`)
@@ -132,7 +138,11 @@ export async function recheckRound(db: Database, roundId: string) {
   const spectra: Record<string, Columns> = {};
   const filesOf = new Map<string, string[]>();
   const failed = async (e: unknown, claimNames: string[] = []) => {
-    if (!isInputProblem(e)) console.error(`checks: round ${roundId} could not be checked:`, e);
+    const inner = e instanceof FileAnalysisFailure ? e.inner : e;
+    // A full pool is no fault of the round: the job fails and pg-boss runs it again.
+    if (inner instanceof CheckerBusy) throw inner;
+    if (inner instanceof CheckerOverBudget) console.warn(`checks: round ${roundId}: ${inner.message}`);
+    else if (!isInputProblem(e)) console.error(`checks: round ${roundId} could not be checked:`, e);
     const checkError = describeCheckFailure(e, runRows.map((r) => r.label), claimNames);
     await db.transaction(async (tx) => {
       await tx.execute(sql`select pg_advisory_xact_lock(hashtext(${`recheck:${roundId}`}))`);
@@ -175,7 +185,9 @@ export async function recheckRound(db: Database, roundId: string) {
   if (changedRuns.length || changedClaims.length) {
     try {
       // Contexts of every run are cheap (no series is read); flags are kept only for what changed.
-      const out = checkPreparedRound({ runs: runRows.map((r) => r.record as RunRecord), policy: policyInput, seriesStats, spectra, claims: changedClaims.map((c) => c.record as ClaimRecord) });
+      // The evaluation runs in a checker thread (time and memory bounded); the writes stay here.
+      const input = { runs: runRows.map((r) => r.record as RunRecord), policy: policyInput, seriesStats, spectra, claims: changedClaims.map((c) => c.record as ClaimRecord) };
+      const out = await runChecker({ kind: "round-check", input });
       runResults = out.runs;
       claimFlags = out.claimFlags;
       claimComparisons = out.claimComparisons;
