@@ -5,7 +5,7 @@ import { ClaimEditor, claimDraftOf } from "~/components/workspace/claim-editor";
 import { FlagsPanel } from "~/components/workspace/flags-panel";
 import { serviceError } from "~/workspace/action-errors.server";
 import { requireRound } from "~/access/page-guards.server";
-import { roundFlags } from "~/workspace/flags-query.server";
+import { flagPanelView } from "~/workspace/flag-panel.server";
 import { changeClaim, parseJsonText, removeClaim } from "~/workspace/run-edits.server";
 import { roundRunList } from "~/workspace/runs.server";
 import { runPlotsMany } from "~/workspace/round-data.server";
@@ -26,7 +26,10 @@ export async function loader(args: Route.LoaderArgs) {
   const { db, access } = await requireRound(args, "read-claims");
   const { round } = access;
   const claim = await claimOfRound(db, round.id, args.params.claimId);
-  const [runs, flags] = await Promise.all([roundRunList(db, round.id), roundFlags(db, round.id)]);
+  const [runs, flags] = await Promise.all([
+    roundRunList(db, round.id),
+    flagPanelView(db, round.id, { scope: { claim: claim.id }, groupings: ["rule", "run"], params: new URL(args.request.url).searchParams }),
+  ]);
   // The runs of the claim with an attached series, overlaid on one plot (stored downsampled copies).
   const named = new Set(((claim.record as { runs?: { label: string }[] }).runs ?? []).map((r) => r.label));
   const claimRuns = runs.filter((r) => named.has(r.label));
@@ -37,7 +40,7 @@ export async function loader(args: Route.LoaderArgs) {
     checkError: round!.checkError,
     claim: { id: claim.id, version: claim.version, figure: claim.figure, statement: claim.statement, record: claim.record },
     runs: runs.map((r) => ({ id: r.runId, label: r.label })),
-    flags: flags.filter((f) => f.claimId === claim.id),
+    flags,
     canEdit: access.can("write-claims"),
   };
 }
@@ -99,10 +102,9 @@ export default function Claim({ loaderData: d, params }: Route.ComponentProps) {
         <ComparisonChart runs={d.overlay} title={`The claim's runs overlaid: ${d.overlay.map((o) => o.label).join(", ")} (downsampled series)`} />
       ) : null}
       <FlagsPanel
-        flags={d.flags}
+        view={d.flags}
+        rowsHref={href("/venues/:venueId/submissions/:submissionId/rounds/:round/flags", p)}
         checkError={d.checkError}
-        runLabels={d.runs.map((r) => r.label)}
-        claims={[]}
         runHref={(label) => (runId.get(label) ? href("/venues/:venueId/submissions/:submissionId/rounds/:round/runs/:runId", { ...p, runId: runId.get(label)! }) : null)}
         claimHref={(_id, row) => (row !== null ? `#checked-${row}` : "#")}
         answerAction={d.canEdit ? (id) => href("/venues/:venueId/submissions/:submissionId/rounds/:round/flags/:flagId/answer", { ...p, flagId: id }) : undefined}
