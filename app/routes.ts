@@ -68,6 +68,7 @@ export default [
             route("runs.csv", "routes/venues/submissions/rounds/runs-csv.ts"),
             route("claims", "routes/venues/submissions/rounds/claims/index.tsx"),
             route("claims/:claimId", "routes/venues/submissions/rounds/claims/claim.tsx"),
+            route("flags", "routes/venues/submissions/rounds/flags/rows.ts"),
             route("flags/:flagId/answer", "routes/venues/submissions/rounds/flags/answer.ts"),
             route("files", "routes/venues/submissions/rounds/files.tsx"),
             route("manuscript.pdf", "routes/venues/submissions/rounds/manuscript-pdf.ts"),

@@ -106,12 +106,30 @@ test("an author takes a submission from empty to sent; a co-author follows; an u
   await expect(flag(page, "A.pm-from-diffusivities")).toHaveCount(1);
   await expect(flag(page, "B.stated-vs-material")).toHaveCount(1);
   await expect(flag(page, "G.undeclared-difference").filter({ hasText: "controls.Ra" })).toHaveCount(1);
-  await expect(flag(page, "A.pm-from-diffusivities")).toContainText("source");
+  // Grouped by rule (the default), what a rule checks and its source stand once above its flags.
+  const pmGroup = panel.getByTestId("flag-group").filter({ has: flag(page, "A.pm-from-diffusivities") });
+  await expect(pmGroup.getByTestId("flag-group-rule")).toContainText("Source");
+  await expect(pmGroup.getByTestId("flag-group-counts")).toContainText("1 mismatch");
+  await expect(panel.getByTestId("flags-unanswered")).toContainText("without an answer from the authors");
   await expect(page.getByRole("button", { name: "Send round 1 to the editor" })).toBeDisabled();
-  // Filtering happens in place.
-  await panel.getByLabel("Rule").selectOption("A.pm-from-diffusivities");
-  await expect(panel.getByTestId("flag")).toHaveCount(1);
-  await panel.getByLabel("Rule").selectOption("");
+  // Filtering and grouping go into the address; the counts come back with the page.
+  await panel.getByLabel("Rule family").selectOption("A");
+  await expect(page).toHaveURL(/[?&]family=A(&|$)/);
+  await expect(panel.locator('[data-testid="flag"]:not([data-rule^="A."])')).toHaveCount(0);
+  await expect(flag(page, "A.pm-from-diffusivities")).toHaveCount(1);
+  await panel.getByLabel("Rule family").selectOption("");
+  await panel.getByLabel("Run", { exact: true }).check();
+  await expect(page).toHaveURL(/[?&]group=run(&|$)/);
+  await expect(panel.getByTestId("flag-group").filter({ hasText: "Run strat-B" }).getByTestId("flag").first()).toBeVisible();
+  await panel.getByLabel("Rule", { exact: true }).check();
+  await expect(page).not.toHaveURL(/group=/);
+  // A closed group's rows come from the round's flags route; a query it cannot read is refused with the reason.
+  const rows = await page.request.get(`${round}/flags?group=rule&key=A.pm-from-diffusivities`);
+  expect(rows.status()).toBe(200);
+  expect(((await rows.json()) as { total: number }).total).toBe(1);
+  const refused = await page.request.get(`${round}/flags?limit=0`);
+  expect(refused.status()).toBe(400);
+  expect(((await refused.json()) as { error: { message: string } }).error.message).toContain("limit");
 
   // Accessibility (axe-core): the round with its flags, the runs, a run, the claims and a claim.
   expect(await seriousViolations(page), "round overview").toEqual([]);

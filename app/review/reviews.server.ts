@@ -11,7 +11,7 @@ import { InvalidInput, StateConflict, type Db } from "~/workspace/types";
 import { roundContext, venueEditors } from "./round-context.server";
 import { recommendationLabel } from "./labels";
 import { VERDICT_REASON_MAX, type RemarkInput } from "./review-forms";
-import { isEmptyDoc } from "./tiptap/extensions";
+import { isEmptyDoc } from "./tiptap/doc";
 
 /** The signed-in reviewer's report on a round, or null when they hold none. */
 export async function reviewOf(db: Db, roundId: string, reviewerId: string) {

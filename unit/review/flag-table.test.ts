@@ -1,9 +1,18 @@
 import { describe, expect, it } from "vitest";
-import { filterFlags, groupFlags, onlyFlagQueryChanged, parseFlagQuery, withFlagQuery } from "~/review/flag-table";
+import { filterFlags, groupFlags, onlyFlagQueryChanged, parseFlagQuery, summariseGroups, withFlagQuery, type FlagGrouping } from "~/review/flag-table";
 import { verdictSchema } from "~/review/review-forms";
 
-type F = { id: string; severity: string; family: string; claimId: string | null; claimTitle: string | null; runLabel: string | null };
-const flag = (id: string, severity: string, family: string, claimId: string | null, runLabel: string | null): F => ({ id, severity, family, claimId, claimTitle: claimId ? `Fig. ${claimId}` : null, runLabel });
+type F = { id: string; severity: string; family: string; claimId: string | null; claimTitle: string | null; runLabel: string | null; rule: string; ruleTitle: string };
+const flag = (id: string, severity: string, family: string, claimId: string | null, runLabel: string | null): F => ({
+  id,
+  severity,
+  family,
+  claimId,
+  claimTitle: claimId ? `Fig. ${claimId}` : null,
+  runLabel,
+  rule: `${family}.rule`,
+  ruleTitle: `Rule of family ${family}`,
+});
 
 const flags: F[] = [
   flag("1", "note", "B", "3", "ref-A"),
@@ -46,6 +55,31 @@ describe("the flags table's query", () => {
     expect(byRun[1]!.counts).toEqual({ mismatch: 2, caution: 1, note: 0 });
     // Every flag lands in exactly one group.
     expect(byRun.flatMap((g) => g.flags).length).toBe(flags.length);
+  });
+
+  it("groups by rule too, and a view offering other groupings starts from its own default", () => {
+    expect(groupFlags(flags, "rule").map((g) => [g.key, g.flags.length])).toEqual([["A.rule", 1], ["B.rule", 1], ["D.rule", 1], ["G.rule", 2]]);
+    const panel: FlagGrouping[] = ["rule", "claim", "run"];
+    expect(parseFlagQuery(new URLSearchParams(""), panel).group).toBe("rule");
+    expect(parseFlagQuery(new URLSearchParams("group=run"), panel).group).toBe("run");
+    // The reviewers' table offers no rule grouping: the address cannot ask for one.
+    expect(parseFlagQuery(new URLSearchParams("group=rule")).group).toBe("claim");
+    expect(withFlagQuery(new URLSearchParams("group=run"), { group: "rule", severity: "", family: "", verdict: "" }, "rule").toString()).toBe("");
+  });
+
+  it("counts groups from counted rows exactly as from the flags themselves", () => {
+    // Rows of n alike flags, as SQL's GROUP BY gives them; expanded, they must group the same way.
+    const counted = [
+      { ...flag("-", "mismatch", "G", "3", "strat-B"), n: 4 },
+      { ...flag("-", "note", "B", "3", "ref-A"), n: 2 },
+      { ...flag("-", "caution", "D", null, "strat-B"), n: 3 },
+      { ...flag("-", "mismatch", "A", null, null), n: 1 },
+    ];
+    const expanded = counted.flatMap((r) => Array.from({ length: r.n }, (_, i) => ({ ...r, id: `${r.rule}-${i}` })));
+    for (const by of ["claim", "run", "rule"] as const) {
+      expect(summariseGroups(counted, by)).toEqual(groupFlags(expanded, by).map((g) => ({ key: g.key, label: g.label, total: g.flags.length, counts: g.counts })));
+    }
+    expect(summariseGroups(counted, "run").map((g) => [g.label, g.total])).toEqual([["Run ref-A", 2], ["Run strat-B", 7], ["Not tied to one run", 1]]);
   });
 
   it("tells a change of filters from a change of page", () => {

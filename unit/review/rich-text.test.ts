@@ -1,5 +1,5 @@
 import { describe, expect, it } from "vitest";
-import { docText } from "~/review/tiptap/extensions";
+import { docText } from "~/review/tiptap/doc";
 import { compose } from "~/mail/compose";
 import { renderRichText, richMailPart } from "~/review/tiptap/render.server";
 

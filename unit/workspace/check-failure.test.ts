@@ -17,6 +17,7 @@ import { count, eq } from "drizzle-orm";
 import { claims, flags, rounds } from "~db/schema";
 import { FlagsPanel } from "~/components/workspace/flags-panel";
 import * as claimsRoute from "~/routes/api/v1/claims";
+import { flagPanelView } from "~/workspace/flag-panel.server";
 import { roundFlags } from "~/workspace/flags-query.server";
 import { recheckRound } from "~/workspace/recheck.server";
 import { addClaim, addRun, removeClaim } from "~/workspace/run-edits.server";
@@ -44,8 +45,10 @@ const badClaim = { format: "runproof.claim/1", title: "Field strength", runs: [{
 const claimRows = async (roundId: string) => (await db.select({ n: count() }).from(claims).where(eq(claims.roundId, roundId)))[0]!.n;
 const roundState = async (roundId: string) => (await db.select({ checkError: rounds.checkError, checkedAt: rounds.checkedAt }).from(rounds).where(eq(rounds.id, roundId)))[0]!;
 
-function panelHtml(props: Parameters<typeof FlagsPanel>[0]) {
-  const Stub = createRoutesStub([{ path: "/", Component: () => createElement(FlagsPanel, props) }]);
+/** The panel as the server renders it for the round's flags (`run`: only that run's; none match "no-such-run"). */
+async function panelHtml(roundId: string, checkError: string | null, run?: string) {
+  const view = await flagPanelView(db, roundId, { scope: run === undefined ? {} : { run }, groupings: ["rule", "claim", "run"], params: new URLSearchParams() });
+  const Stub = createRoutesStub([{ path: "/", Component: () => createElement(FlagsPanel, { view, rowsHref: "/flags", checkError }) }]);
   return renderToString(createElement(Stub, { initialEntries: ["/"] }));
 }
 
@@ -103,13 +106,14 @@ describe("a failed check never leaves stale flags shown as current", () => {
     expect(failed.checkedAt!.getTime()).toBeGreaterThanOrEqual(good.checkedAt!.getTime());
 
     // The panel says checking failed and never "nothing to flag"; the old flags carry "out of date".
-    const html = panelHtml({ flags: [], runLabels: ["strat-B"], claims: [], checkError: failed.checkError });
+    const html = await panelHtml(w.draft.id, failed.checkError, "no-such-run");
     expect(html).toContain("Checking failed");
     expect(html).toContain("Elsasser");
     expect(html).not.toContain("The checker found nothing to flag");
-    const withFlags = panelHtml({ flags: await roundFlags(db, w.draft.id), runLabels: ["strat-B"], claims: [], checkError: failed.checkError });
+    const withFlags = await panelHtml(w.draft.id, failed.checkError);
     expect(withFlags).toContain("out of date");
-    expect(panelHtml({ flags: [], runLabels: [], claims: [], checkError: null })).toContain("The checker found nothing to flag");
+    expect(withFlags).toContain('data-rule="A.pm-from-diffusivities"');
+    expect(await panelHtml(w.draft.id, null, "no-such-run")).toContain("The checker found nothing to flag");
 
     // Every flag is answered, yet the round cannot be sent while its check fails.
     await db.update(flags).set({ authorAnswer: "explained" }).where(eq(flags.roundId, w.draft.id));

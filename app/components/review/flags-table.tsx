@@ -1,4 +1,4 @@
-import { FlagMeasures } from "~/components/flag-measures";
+import { FlagFacts, FlagGroupCounts, SeverityBadge } from "~/components/flag-parts";
 import { memo, useCallback, useEffect, useMemo, useRef, useState, type ReactNode } from "react";
 import { href, Link, useFetcher, useSearchParams, useSubmit } from "react-router";
 import { AdvisoryNote } from "~/components/advisory-note";
@@ -15,12 +15,6 @@ export type EditorVerdicts = Record<string, { reviewer: string; verdict: string;
 type Mode =
   | { kind: "reviewer"; verdicts: ReviewerVerdicts; locked: boolean; renderRemark?: (flag: FlagView, close: () => void) => ReactNode }
   | { kind: "editor"; verdicts: EditorVerdicts };
-
-const tone: Record<string, string> = {
-  mismatch: "border-ember bg-ember-wash text-ember",
-  caution: "border-amber bg-amber-wash text-amber",
-  note: "border-fjord bg-fjord-wash text-fjord",
-};
 
 /** Rows rendered per open group before "Show more": a page of hundreds of flags stays quick. */
 const ROWS_PER_STEP = 100;
@@ -101,7 +95,7 @@ const FlagRow = memo(function FlagRow(p: RowProps) {
         className={`border-b border-rule align-top ${p.focused ? "bg-lichen-wash outline outline-2 outline-fjord" : ""}`}
       >
         <td className="py-1 pr-2">
-          <span className={`inline-block rounded border px-1.5 text-caption font-semibold ${tone[f.severity] ?? ""}`}>{severityLabel(f.severity)}</span>
+          <SeverityBadge severity={f.severity} />
         </td>
         <td className="py-1 pr-2 text-caption whitespace-nowrap">
           <a className="font-mono underline" href={`${href("/help/checks")}#${f.rule}`} title={f.ruleTitle}>
@@ -161,32 +155,13 @@ const FlagRow = memo(function FlagRow(p: RowProps) {
           <td colSpan={COLS} className="px-2 py-2">
             <p>{f.message}</p>
             <p className="mt-1 font-semibold">{f.ruleTitle}</p>
-            <dl className="mt-1 grid grid-cols-[auto_1fr] gap-x-3 text-caption">
-              <FlagMeasures flag={f} />
-              {f.claimTitle ? (
-                <>
-                  <dt className="font-semibold">Claim</dt>
-                  <dd>
-                    {f.claimTitle}
-                    {f.claimRow !== null ? `, stated value ${f.claimRow + 1}` : ""}
-                  </dd>
-                </>
-              ) : null}
-              {f.explanation ? (
-                <>
-                  <dt className="font-semibold">What the rule checks</dt>
-                  <dd>{f.explanation}</dd>
-                </>
-              ) : null}
-              <dt className="font-semibold">Source</dt>
-              <dd>{f.source}</dd>
-              {f.authorAnswer ? (
-                <>
-                  <dt className="font-semibold">Authors' answer</dt>
-                  <dd>{f.authorAnswer}</dd>
-                </>
-              ) : null}
-            </dl>
+            <FlagFacts
+              flag={f}
+              claim={f.claimTitle ? `${f.claimTitle}${f.claimRow !== null ? `, stated value ${f.claimRow + 1}` : ""}` : null}
+              explanation={f.explanation}
+              source={f.source}
+              answer={f.authorAnswer}
+            />
             {mode.kind === "editor" && editorVerdicts.length ? (
               <ul className="mt-2 text-caption" aria-label="Reviewers' verdicts">
                 {editorVerdicts.map((v) => (
@@ -532,9 +507,7 @@ export function FlagsTable({ flags, mode, runHref, title = "Flags" }: { flags: F
                       >
                         <span aria-hidden="true">{opened ? "▾" : "▸"} </span>
                         <span className="font-semibold">{g.label}</span>{" "}
-                        <span className="text-caption font-normal" data-testid="flag-group-counts">
-                          · {g.flags.length} {g.flags.length === 1 ? "flag" : "flags"}: {g.counts.mismatch} mismatch, {g.counts.caution} caution, {g.counts.note} note
-                        </span>
+                        <FlagGroupCounts total={g.flags.length} counts={g.counts} />
                       </button>
                     </th>
                   </tr>

@@ -3,10 +3,8 @@ import { requireRound } from "~/access/page-guards.server";
 import { FlagsPanel } from "~/components/workspace/flags-panel";
 import { ParameterSpaceChart } from "~/components/workspace/lazy-plots";
 import { serviceError } from "~/workspace/action-errors.server";
-import { roundClaims } from "~/workspace/claims.server";
-import { roundFlags } from "~/workspace/flags-query.server";
+import { flagPanelView } from "~/workspace/flag-panel.server";
 import { roundRunPoints } from "~/workspace/round-data.server";
-import { fieldId, fieldForQuantity } from "~/workspace/run-form-fields";
 import { sendRound } from "~/workspace/send.server";
 import { deleteDraftSubmission, draftSubmissionContents } from "~/workspace/removals.server";
 import type { Route } from "./+types/overview";
@@ -18,14 +16,12 @@ export async function loader(args: Route.LoaderArgs) {
   // Someone invited to review, who has not answered yet, starts at the invitation.
   if (!access.can("read-flags")) throw redirect(href("/venues/:venueId/submissions/:submissionId/rounds/:round/review", args.params));
   const round = access.round;
-  const [flags, runs, claims] = await Promise.all([roundFlags(db, round.id), roundRunPoints(db, round.id), roundClaims(db, round.id)]);
-  const url = new URL(args.request.url);
-  const initial = Object.fromEntries(["severity", "rule", "run", "claim"].map((k) => [k, url.searchParams.get(k) ?? ""]));
+  const params = new URL(args.request.url).searchParams;
+  const [flags, runs] = await Promise.all([flagPanelView(db, round.id, { groupings: ["rule", "claim", "run"], params }), roundRunPoints(db, round.id)]);
   return {
     checkError: round!.checkError,
     flags,
     runs,
-    claims: claims.map((c) => ({ id: c.id, title: [c.figure, (c.record as { title?: string }).title].filter(Boolean).join(": ") || "claim" })),
     draft: round.state === "draft",
     version: round.version,
     canAnswer: access.can("answer-flags"),
@@ -33,7 +29,6 @@ export async function loader(args: Route.LoaderArgs) {
     showSendPanel: access.can("write-runs"),
     // Only a submission that was never sent can be deleted (round 1 still a draft).
     deletable: access.can("delete-draft") && round.number === 1 ? await draftSubmissionContents(db, access.submission.id) : null,
-    initial,
   };
 }
 
@@ -60,19 +55,16 @@ export async function action(args: Route.ActionArgs) {
 export default function RoundOverview({ loaderData: d, actionData, params }: Route.ComponentProps) {
   const p = { venueId: params.venueId, submissionId: params.submissionId, round: params.round };
   const runId = new Map(d.runs.map((r) => [r.label, r.runId]));
-  const open = d.flags.filter((f) => f.severity === "mismatch" && !f.authorAnswer).length;
+  const open = d.flags.unanswered;
   return (
     <div className="grid gap-6 lg:grid-cols-[2fr_1fr]">
       <FlagsPanel
-        flags={d.flags}
+        view={d.flags}
+        rowsHref={href("/venues/:venueId/submissions/:submissionId/rounds/:round/flags", p)}
         checkError={d.checkError}
-        runLabels={d.runs.map((r) => r.label)}
-        claims={d.claims}
-        initial={d.initial}
-        runHref={(label, q) => {
+        runHref={(label, field) => {
           const id = runId.get(label);
-          const f = q.map(fieldForQuantity).find(Boolean);
-          return id ? `${href("/venues/:venueId/submissions/:submissionId/rounds/:round/runs/:runId", { ...p, runId: id })}${f ? `#${fieldId(f)}` : ""}` : null;
+          return id ? `${href("/venues/:venueId/submissions/:submissionId/rounds/:round/runs/:runId", { ...p, runId: id })}${field ? `#${field}` : ""}` : null;
         }}
         claimHref={(id, row) => `${href("/venues/:venueId/submissions/:submissionId/rounds/:round/claims/:claimId", { ...p, claimId: id })}${row !== null ? `#stated-${row}` : ""}`}
         answerAction={d.canAnswer ? (id) => href("/venues/:venueId/submissions/:submissionId/rounds/:round/flags/:flagId/answer", { ...p, flagId: id }) : undefined}

@@ -5,7 +5,7 @@ import { ClaimEditor, claimDraftOf } from "~/components/workspace/claim-editor";
 import { FlagsPanel } from "~/components/workspace/flags-panel";
 import { serviceError } from "~/workspace/action-errors.server";
 import { requireRound } from "~/access/page-guards.server";
-import { roundFlags } from "~/workspace/flags-query.server";
+import { flagPanelView } from "~/workspace/flag-panel.server";
 import { changeClaim, parseJsonText, removeClaim } from "~/workspace/run-edits.server";
 import { roundRunLabels, roundRunsLabelled, type roundRunList } from "~/workspace/runs.server";
 import { runPlotsMany } from "~/workspace/round-data.server";
@@ -30,7 +30,7 @@ export async function loader(args: Route.LoaderArgs) {
   const named = [...new Set(((claim.record as { runs?: { label: string }[] }).runs ?? []).map((r) => r.label))].slice(0, 200);
   const [runs, flags, claimRuns] = await Promise.all([
     roundRunLabels(db, round.id),
-    roundFlags(db, round.id, { claimId: claim.id }),
+    flagPanelView(db, round.id, { scope: { claim: claim.id }, groupings: ["rule", "run"], params: new URL(args.request.url).searchParams }),
     named.length > 1 ? roundRunsLabelled(db, round.id, named) : [],
   ]);
   const plots = claimRuns.length > 1 ? await runPlotsMany(db, claimRuns.map((r) => ({ versionId: r.versionId, label: r.label, record: r.record }))) : [];
@@ -102,10 +102,9 @@ export default function Claim({ loaderData: d, params }: Route.ComponentProps) {
         <ComparisonChart runs={d.overlay} title={`The claim's runs overlaid: ${d.overlay.map((o) => o.label).join(", ")} (downsampled series)`} />
       ) : null}
       <FlagsPanel
-        flags={d.flags}
+        view={d.flags}
+        rowsHref={href("/venues/:venueId/submissions/:submissionId/rounds/:round/flags", p)}
         checkError={d.checkError}
-        runLabels={d.runs.map((r) => r.label)}
-        claims={[]}
         runHref={(label) => (runId.get(label) ? href("/venues/:venueId/submissions/:submissionId/rounds/:round/runs/:runId", { ...p, runId: runId.get(label)! }) : null)}
         claimHref={(_id, row) => (row !== null ? `#checked-${row}` : "#")}
         answerAction={d.canEdit ? (id) => href("/venues/:venueId/submissions/:submissionId/rounds/:round/flags/:flagId/answer", { ...p, flagId: id }) : undefined}

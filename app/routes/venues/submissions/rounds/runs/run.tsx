@@ -7,7 +7,7 @@ import type { RunRecord } from "~/checker/schema";
 import { env } from "~/config/env.server";
 import { serviceError } from "~/workspace/action-errors.server";
 import { requireRound } from "~/access/page-guards.server";
-import { roundFlags } from "~/workspace/flags-query.server";
+import { flagPanelView } from "~/workspace/flag-panel.server";
 import { runPlots, storedDerived } from "~/workspace/round-data.server";
 import { DERIVED_LABELS, recordLines } from "~/review/pdf/run-record";
 import { sig4 } from "~/lib/sig-figs";
@@ -51,7 +51,7 @@ export async function loader(args: Route.LoaderArgs) {
   const [history, plots, flags, derived] = await Promise.all([
     runVersionHistory(db, run.runId),
     runPlots(db, run.versionId, run.record as RunRecord),
-    roundFlags(db, round.id, { runLabel: run.label }),
+    flagPanelView(db, round.id, { scope: { run: run.label }, groupings: ["rule", "claim"], params: new URL(args.request.url).searchParams }),
     storedDerived(db, run.versionId),
   ]);
   // The recomputed values as the check job stored them for this run version (nothing is recomputed here).
@@ -232,14 +232,11 @@ export default function Run({ loaderData: d, actionData, params }: Route.Compone
       </div>
       <VersionHistory d={d} />
       <FlagsPanel
-        flags={d.flags}
+        view={d.flags}
+        rowsHref={href("/venues/:venueId/submissions/:submissionId/rounds/:round/flags", p)}
         checkError={d.checkError}
-        runLabels={[d.run.label]}
-        claims={[]}
-        runHref={(_l, q) => {
-          const f = q.map(fieldForQuantity).find(Boolean);
-          return f ? `#${fieldId(f)}` : null;
-        }}
+        runHref={(_l, field) => (field ? `#${field}` : null)}
+        claimHref={(id, row) => `${href("/venues/:venueId/submissions/:submissionId/rounds/:round/claims/:claimId", { ...p, claimId: id })}${row !== null ? `#stated-${row}` : ""}`}
         answerAction={d.canEdit ? (id) => href("/venues/:venueId/submissions/:submissionId/rounds/:round/flags/:flagId/answer", { ...p, flagId: id }) : undefined}
       />
       <section aria-labelledby="plots-h" className="flex flex-col gap-4">
