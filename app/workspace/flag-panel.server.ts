@@ -6,7 +6,7 @@ import { fmt } from "~/checker/types";
 import { parseFlagQuery, summariseGroups, type FlagCounts, type FlagGrouping } from "~/review/flag-table";
 import { z } from "zod";
 import { fieldForQuantity, fieldId } from "./run-form-fields";
-import { PANEL_OPEN_ALL_UP_TO, PANEL_ROWS_MAX, PANEL_ROWS_STEP, type FlagPanelView, type PanelFlag, type PanelRows, type PanelScope, type RuleWords } from "./flag-panel";
+import { PANEL_OPEN_ALL_UP_TO, PANEL_ROWS_MAX, PANEL_ROWS_STEP, type FlagPanelView, type PanelFlag, type PanelRows, type PanelScope, type RuleWords } from "./flag-panel-shape";
 
 /** The rows route's query: one group of the panel (`key` "" is the group of unattached flags). */
 export const panelRowsQuerySchema = z.object({

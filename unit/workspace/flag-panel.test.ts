@@ -14,7 +14,7 @@ vi.hoisted(() => {
 import { and, eq } from "drizzle-orm";
 import { flags } from "~db/schema";
 import { groupFlags } from "~/review/flag-table";
-import { PANEL_OPEN_ALL_UP_TO, PANEL_ROWS_STEP } from "~/workspace/flag-panel";
+import { PANEL_OPEN_ALL_UP_TO, PANEL_ROWS_STEP } from "~/workspace/flag-panel-shape";
 import { flagPanelRows, flagPanelView, panelRowsQuerySchema } from "~/workspace/flag-panel.server";
 import { roundFlags } from "~/workspace/flags-query.server";
 import { makeWorld } from "../api/fixture";

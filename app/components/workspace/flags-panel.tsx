@@ -4,7 +4,7 @@ import { AdvisoryNote } from "~/components/advisory-note";
 import { FlagFacts, FlagGroupCounts, SeverityBadge } from "~/components/flag-parts";
 import { groupKeyOf, parseFlagQuery, withFlagQuery, type FlagGroupSummary, type FlagGrouping, type FlagQuery } from "~/review/flag-table";
 import { severityLabel } from "~/review/labels";
-import { PANEL_ROWS_STEP, panelRowsParams, type FlagPanelView, type PanelFlag, type PanelRows } from "~/workspace/flag-panel";
+import { PANEL_ROWS_STEP, panelRowsParams, type FlagPanelView, type PanelFlag, type PanelRows } from "~/workspace/flag-panel-shape";
 
 type Links = {
   /** Link to the run (and the field) a flag concerns (null: no link). */
