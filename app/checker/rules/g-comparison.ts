@@ -5,7 +5,7 @@
  */
 import type { ClaimContext, RunContext } from "../context.ts";
 import { CANONICAL, convert } from "../conventions.ts";
-import { flagOf, type Flag, type RuleInfo } from "../types.ts";
+import { flagOf, fmt, type Flag, type RuleInfo } from "../types.ts";
 
 const CP = "common practice";
 
@@ -68,7 +68,7 @@ function same(a: Leaf | undefined, b: Leaf | undefined): boolean {
 
 export const covers = (varied: string, path: string) => path === varied || path.startsWith(varied + ".");
 
-const show = (v: Leaf | undefined) => (v === undefined ? "absent" : typeof v === "string" ? `"${v}"` : String(v));
+const show = (v: Leaf | undefined) => (v === undefined ? "absent" : typeof v === "string" ? `"${v}"` : typeof v === "number" ? fmt(v) : String(v));
 
 export function checkComparison(cc: ClaimContext): Flag[] {
   const out: Flag[] = [];
