@@ -9,30 +9,39 @@ import { fileURLToPath } from "node:url";
 
 export const CLI_BUNDLE = "build/downloads/runproof-check.mjs";
 
-export async function buildCli(outfile = CLI_BUNDLE) {
-  const root = fileURLToPath(new URL("..", import.meta.url));
+// Bundled CommonJS code may call require(); give the module one.
+const REQUIRE_SHIM = 'import { createRequire as __runproofRequire } from "node:module"; const require = __runproofRequire(import.meta.url);';
+
+/** One self-contained ES module for Node 20+ from one entry, with the app's path aliases. */
+async function bundleForNode(entry, outfile, options = {}) {
   await build({
-    absWorkingDir: root,
-    entryPoints: ["scripts/check.ts"],
+    absWorkingDir: fileURLToPath(new URL("..", import.meta.url)),
+    entryPoints: [entry],
     outfile,
     bundle: true,
     platform: "node",
     target: "node20",
     format: "esm",
-    minify: true,
-    legalComments: "eof",
     logLevel: "warning",
     alias: { "~": "./app", "~db": "./database" },
-    // Bundled CommonJS code may call require(); give the module one.
+    banner: { js: REQUIRE_SHIM },
+    ...options,
+  });
+  return outfile;
+}
+
+export function buildCli(outfile = CLI_BUNDLE) {
+  return bundleForNode("scripts/check.ts", outfile, {
+    minify: true,
+    legalComments: "eof",
     banner: {
       js: [
         "#!/usr/bin/env node",
         "// Runproof checker, command-line edition (runproof.run/1, runproof.claim/1). Usage: node runproof-check.mjs --help",
-        'import { createRequire as __runproofRequire } from "node:module"; const require = __runproofRequire(import.meta.url);',
+        REQUIRE_SHIM,
       ].join("\n"),
     },
   });
-  return outfile;
 }
 
 export const CHECKER_THREAD_BUNDLE = "build/server/checker-thread.mjs";
@@ -43,21 +52,8 @@ export const CHECKER_THREAD_BUNDLE = "build/server/checker-thread.mjs";
  * (app/threads/checker-pool.server.ts). It cannot live inside the server bundle: a worker
  * thread starts from a file of its own. Not minified, so a stack trace names real functions.
  */
-export async function buildCheckerThread(outfile = CHECKER_THREAD_BUNDLE) {
-  const root = fileURLToPath(new URL("..", import.meta.url));
-  await build({
-    absWorkingDir: root,
-    entryPoints: ["app/threads/checker-thread.ts"],
-    outfile,
-    bundle: true,
-    platform: "node",
-    target: "node20",
-    format: "esm",
-    logLevel: "warning",
-    alias: { "~": "./app", "~db": "./database" },
-    banner: { js: 'import { createRequire as __runproofRequire } from "node:module"; const require = __runproofRequire(import.meta.url);' },
-  });
-  return outfile;
+export function buildCheckerThread(outfile = CHECKER_THREAD_BUNDLE) {
+  return bundleForNode("app/threads/checker-thread.ts", outfile);
 }
 
 if (process.argv[1] && fileURLToPath(import.meta.url) === process.argv[1]) {

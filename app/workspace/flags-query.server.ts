@@ -1,4 +1,4 @@
-import { and, asc, eq } from "drizzle-orm";
+import { asc, eq } from "drizzle-orm";
 import type { Database } from "~db/client";
 import { claims, flags } from "~db/schema";
 import { FAMILIES, ruleById } from "~/checker/registry";
@@ -11,19 +11,13 @@ export type { FlagView };
 /** Numbers to four significant figures in the checker's one format (the checker keeps full precision; people read four). */
 const show = (v: unknown) => (v === undefined || v === null ? null : typeof v === "number" ? fmt(v) : String(v));
 
-/** A round's stored flags (or those of one run or one claim), with the rule's one-line explanation beside each. */
-export async function roundFlags(db: Database, roundId: string, only: { runLabel?: string; claimId?: string } = {}): Promise<FlagView[]> {
+/** A round's stored flags, with the rule's one-line explanation beside each. */
+export async function roundFlags(db: Database, roundId: string): Promise<FlagView[]> {
   const rows = await db
     .select({ flag: flags, claimTitle: claims.figure, claimRecord: claims.record })
     .from(flags)
     .leftJoin(claims, eq(claims.id, flags.claimId))
-    .where(
-      and(
-        eq(flags.roundId, roundId),
-        only.runLabel === undefined ? undefined : eq(flags.runLabel, only.runLabel),
-        only.claimId === undefined ? undefined : eq(flags.claimId, only.claimId),
-      ),
-    )
+    .where(eq(flags.roundId, roundId))
     // A stable order (fingerprint last) so a list does not reshuffle when it revalidates.
     .orderBy(asc(flags.severity), asc(flags.rule), asc(flags.runLabel), asc(flags.fingerprint), asc(flags.message));
   return rows.map(({ flag: f, claimTitle, claimRecord }) => {
