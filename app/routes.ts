@@ -69,6 +69,7 @@ export default [
             route("claims", "routes/venues/submissions/rounds/claims/index.tsx"),
             route("claims/:claimId", "routes/venues/submissions/rounds/claims/claim.tsx"),
             route("flags", "routes/venues/submissions/rounds/flags/rows.ts"),
+            route("flags/table", "routes/venues/submissions/rounds/flags/table.ts"),
             route("flags/:flagId/answer", "routes/venues/submissions/rounds/flags/answer.ts"),
             route("files", "routes/venues/submissions/rounds/files.tsx"),
             route("manuscript.pdf", "routes/venues/submissions/rounds/manuscript-pdf.ts"),

@@ -88,6 +88,8 @@ const RULES: Record<string, Rule> = {
   "routes/venues/submissions/rounds/claims/claim.tsx": { kind: "round", get: CONTENT, post: { update: AUTHOR_WRITE, delete: AUTHOR_WRITE }, destructive: ["delete"] },
   // The flags panel's rows, read when a group is opened: whoever may read the round's flags.
   "routes/venues/submissions/rounds/flags/rows.ts": { kind: "round", get: CONTENT },
+  // Every flag for the reviewers' and the editor's table, read after the page: the same readers.
+  "routes/venues/submissions/rounds/flags/table.ts": { kind: "round", get: CONTENT },
   "routes/venues/submissions/rounds/flags/answer.ts": { kind: "round", get: {}, post: { "": AUTHOR_WRITE } },
   "routes/venues/submissions/rounds/files.tsx": { kind: "round", get: CONTENT, post: { "": AUTHOR_WRITE } },
   "routes/venues/submissions/rounds/manuscript-pdf.ts": { kind: "round", get: CONTENT },

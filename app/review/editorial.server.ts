@@ -6,13 +6,12 @@ import { roundFlags } from "./documents.server";
 import { anchorLabels } from "./remarks.server";
 import { reportPartsOf } from "./reviews.server";
 import { renderRichText } from "./tiptap/render.server";
-import { roundFlags as flagViews } from "~/workspace/flags-query.server";
 import { submittedVerdictsByFlag } from "./verdicts.server";
 import type { Database } from "~db/client";
 
 /** What the editor's round page shows: invitations, full reports (with editor-only notes), audit. */
 export async function editorialView(db: Database, ctx: RoundContext, opts: { showReviewerNames: boolean } = { showReviewerNames: false }) {
-  const [invites, reviewRows, audit, flagRows, previous, table, verdictRows, runLinks] = await Promise.all([
+  const [invites, reviewRows, audit, flagRows, previous, verdictRows, runLinks] = await Promise.all([
     db.select({ id: invitations.id, email: invitations.email, state: invitations.state, dueAt: invitations.dueAt, createdAt: invitations.createdAt }).from(invitations).where(eq(invitations.roundId, ctx.round.id)).orderBy(asc(invitations.createdAt)),
     db
       .select({ id: reviews.id, number: reviews.number, state: reviews.state, recommendation: reviews.recommendation, editorNote: reviews.editorNote, dueAt: reviews.dueAt, submittedAt: reviews.submittedAt, name: user.name, email: user.email })
@@ -23,7 +22,6 @@ export async function editorialView(db: Database, ctx: RoundContext, opts: { sho
     db.select({ id: auditLog.id, action: auditLog.action, detail: auditLog.detail, at: auditLog.at, actor: user.name }).from(auditLog).leftJoin(user, eq(user.id, auditLog.actorId)).where(eq(auditLog.submissionId, ctx.submission.id)).orderBy(desc(auditLog.at)),
     roundFlags(db, ctx.round.id),
     ctx.round.number > 1 ? db.select({ id: rounds.id }).from(rounds).where(and(eq(rounds.submissionId, ctx.submission.id), eq(rounds.number, ctx.round.number - 1))) : Promise.resolve([]),
-    flagViews(db, ctx.round.id),
     submittedVerdictsByFlag(db, ctx.round.id),
     db.select({ runId: runs.id, label: runs.label }).from(roundRuns).innerJoin(runs, eq(runs.id, roundRuns.runId)).where(eq(roundRuns.roundId, ctx.round.id)),
   ]);
@@ -47,6 +45,6 @@ export async function editorialView(db: Database, ctx: RoundContext, opts: { sho
     });
   const counts = { mismatch: 0, caution: 0, note: 0 } as Record<string, number>;
   for (const f of flagRows) counts[f.severity] = (counts[f.severity] ?? 0) + 1;
-  return { invites, reports, audit, flagCounts: counts, hasPrevious: previous.length > 0, flags: table, flagVerdicts, runs: runLinks };
+  return { invites, reports, audit, flagCounts: counts, flagTotal: flagRows.length, hasPrevious: previous.length > 0, flagVerdicts, runs: runLinks };
 }
 

@@ -3,7 +3,7 @@ import type { Database } from "~db/client";
 import { contributors } from "~db/schema";
 import type { RunRecord } from "~/checker/schema";
 import { roundClaims } from "~/workspace/claims.server";
-import { roundFlags } from "~/workspace/flags-query.server";
+import { roundFlagCount } from "~/workspace/flag-panel.server";
 import { roundRunRows, roundRunsWithPlots } from "~/workspace/round-data.server";
 import type { RoundContext } from "./round-context.server";
 import { anchorLabels } from "./remarks.server";
@@ -15,11 +15,11 @@ import { renderRichText } from "./tiptap/render.server";
  * at single-blind venues; no other reviewer's anything is selected.
  */
 export async function reviewerView(db: Database, ctx: RoundContext, review: { id: string }, opts: { showAuthors: boolean }) {
-  const [claimRows, runRows, withPlots, flagRows, parts, people] = await Promise.all([
+  const [claimRows, runRows, withPlots, flagTotal, parts, people] = await Promise.all([
     roundClaims(db, ctx.round.id),
     roundRunRows(db, ctx.round.id),
     roundRunsWithPlots(db, ctx.round.id),
-    roundFlags(db, ctx.round.id),
+    roundFlagCount(db, ctx.round.id),
     reportParts(db, review.id),
     !opts.showAuthors
       ? Promise.resolve([])
@@ -36,7 +36,8 @@ export async function reviewerView(db: Database, ctx: RoundContext, review: { id
     runRows,
     // Which runs have plots; each run's plot copies load when the reviewer asks for them.
     plots: withPlots,
-    flags: flagRows,
+    // The flags themselves come from the table's rows route once the page is on screen.
+    flagTotal,
     verdicts: Object.fromEntries(parts.verdicts.map((v) => [v.flagId, { verdict: v.verdict, reason: v.reason }])) as Record<string, { verdict: string; reason: string | null }>,
     // The reviewer's own remarks come with their JSON too, so they can be edited until submitted.
     remarks: parts.remarks.map((m) => ({ id: m.id, anchorKind: m.anchorKind, anchorRef: m.anchorRef, anchor: label(m.anchorKind, m.anchorRef), html: renderRichText(m.body), body: m.body })),

@@ -101,6 +101,12 @@ async function readRows(db: Database, where: SQL[], limit: number): Promise<Pane
   };
 }
 
+/** How many flags a round holds (the reviewers' and the editor's table reads the flags themselves after the page). */
+export async function roundFlagCount(db: Database, roundId: string): Promise<number> {
+  const [row] = await db.select({ n: sql<number>`count(*)::int` }).from(flags).where(eq(flags.roundId, roundId));
+  return row?.n ?? 0;
+}
+
 /** The rows of one group of the panel, the first `limit` of them, and how many the group holds. */
 export function flagPanelRows(db: Database, roundId: string, q: PanelRowsQuery): Promise<PanelRows> {
   return readRows(db, [...scopeWhere(roundId, { run: q.run, claim: q.claim }), ...filterWhere(q), groupWhere(q.group, q.key)], q.limit);

@@ -13,7 +13,6 @@ export type FlagView = {
   claimId: string | null;
   claimTitle: string | null;
   claimRow: number | null;
-  quantities: string[];
   message: string;
   expected: string | null;
   found: string | null;

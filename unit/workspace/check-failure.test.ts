@@ -18,13 +18,17 @@ import { claims, flags, rounds } from "~db/schema";
 import { FlagsPanel } from "~/components/workspace/flags-panel";
 import * as claimsRoute from "~/routes/api/v1/claims";
 import { flagPanelView } from "~/workspace/flag-panel.server";
-import { roundFlags } from "~/workspace/flags-query.server";
+import { roundFlagTable } from "~/workspace/flags-query.server";
+import { expandFlagTable } from "~/workspace/flag-table-shape";
 import { recheckRound } from "~/workspace/recheck.server";
 import { addClaim, addRun, removeClaim } from "~/workspace/run-edits.server";
 import { sendRound } from "~/workspace/send.server";
 import { InvalidInput, StateConflict } from "~/workspace/types";
 import { call, makeWorld } from "../api/fixture";
 import { testDatabase } from "../support/test-db";
+
+/** The round's flags as the reviewers' table shows them. */
+const roundFlags = async (db: Parameters<typeof roundFlagTable>[0], roundId: string) => expandFlagTable(await roundFlagTable(db, roundId));
 
 const { db, sql } = testDatabase();
 const tag = `ckfail-${Date.now()}-${Math.floor(Math.random() * 1e5)}`;

@@ -13,12 +13,17 @@ vi.hoisted(() => {
 
 import { and, eq } from "drizzle-orm";
 import { flags } from "~db/schema";
+import { ruleById } from "~/checker/registry";
 import { groupFlags } from "~/review/flag-table";
 import { PANEL_OPEN_ALL_UP_TO, PANEL_ROWS_STEP } from "~/workspace/flag-panel-shape";
 import { flagPanelRows, flagPanelView, panelRowsQuerySchema } from "~/workspace/flag-panel.server";
-import { roundFlags } from "~/workspace/flags-query.server";
+import { roundFlagTable } from "~/workspace/flags-query.server";
+import { expandFlagTable } from "~/workspace/flag-table-shape";
 import { makeWorld } from "../api/fixture";
 import { testDatabase } from "../support/test-db";
+
+/** The round's flags as the reviewers' table shows them. */
+const roundFlags = async (db: Parameters<typeof roundFlagTable>[0], roundId: string) => expandFlagTable(await roundFlagTable(db, roundId));
 
 const { db, sql } = testDatabase();
 const tag = `fpanel-${Date.now()}-${Math.floor(Math.random() * 1e5)}`;
@@ -118,5 +123,26 @@ describe("the authors' flags panel", () => {
       expect(panelRowsQuerySchema.safeParse(Object.fromEntries(new URLSearchParams(bad))).success, bad).toBe(false);
     }
     expect(panelRowsQuerySchema.parse({})).toMatchObject({ group: "claim", key: "", limit: PANEL_ROWS_STEP });
+  });
+});
+
+describe("the reviewers' and the editor's table data", () => {
+  it("sends each rule's words once, a flag's own source only where it differs, and expands to full flags", async () => {
+    const table = await roundFlagTable(db, w.draft.id);
+    const flagCount = table.rows.length;
+    expect(flagCount).toBeGreaterThan(400);
+    // One entry per rule named, with the registry's words.
+    expect(Object.keys(table.rules).sort()).toEqual([...new Set(table.rows.map((r) => r.rule))].sort());
+    const info = ruleById("A.pm-from-diffusivities")!;
+    expect(table.rules["A.pm-from-diffusivities"]).toMatchObject({ title: info.title, family: info.family, explanation: info.explanation, source: info.source });
+    expect(table.rows.every((r) => !("explanation" in r) && !("ruleTitle" in r))).toBe(true);
+    // A stored source of its own travels with its flag.
+    const [own] = await db.insert(flags).values({ roundId: w.draft.id, fingerprint: `${tag}-own-source`, rule: "A.pm-from-diffusivities", severity: "caution", runLabel: "R01", quantities: ["controls.Pm"], message: "own source", detail: { expected: 0.000123456, found: 2, source: "the authors' own table" } }).returning();
+    const full = expandFlagTable(await roundFlagTable(db, w.draft.id));
+    expect(full).toHaveLength(flagCount + 1);
+    const mine = full.find((f) => f.id === own!.id)!;
+    expect(mine).toMatchObject({ source: "the authors' own table", ruleTitle: info.title, family: info.family, explanation: info.explanation, expected: "1.235e-4", found: "2" });
+    const other = full.find((f) => f.rule === "A.pm-from-diffusivities" && f.id !== own!.id)!;
+    expect(other.source).toBe(info.source);
   });
 });

@@ -4,6 +4,7 @@ import { href, Link, useFetcher, useSearchParams, useSubmit } from "react-router
 import { AdvisoryNote } from "~/components/advisory-note";
 import { filterFlags, groupFlags, parseFlagQuery, withFlagQuery, type FlagQuery } from "~/review/flag-table";
 import { severityLabel, verdictLabel } from "~/review/labels";
+import { expandFlagTable, type FlagTableData } from "~/workspace/flag-table-shape";
 import type { FlagView } from "~/workspace/view-types";
 
 /** A verdict as stored: the reviewer's choice and, for a dispute or a question, the reason. */
@@ -234,7 +235,64 @@ const FlagRow = memo(function FlagRow(p: RowProps) {
  * grouping in the URL, counts per group, a row expanding to the numbers behind it, and keys —
  * j/k move, a agrees, d disputes (asks for the reason), x or Enter expands.
  */
-export function FlagsTable({ flags, mode, runHref, title = "Flags" }: { flags: FlagView[]; mode: Mode; runHref?: (label: string) => string; title?: string }) {
+export function FlagsTable({ rowsHref, total, mode, runHref, title = "Flags" }: { rowsHref: string; total: number; mode: Mode; runHref?: (label: string) => string; title?: string }) {
+  const read = useFlagTableRows(rowsHref);
+  if (read.state !== "done")
+    return (
+      <section aria-labelledby="flags-table-h" data-testid="flags-table">
+        <h2 id="flags-table-h" className="text-lead">
+          {title}{" "}
+          <span className="text-caption font-normal text-basalt-soft" data-testid="flags-shown">
+            ({total} in this round)
+          </span>
+        </h2>
+        <AdvisoryNote className="mt-2" />
+        {read.state === "failed" ? (
+          <p role="alert" className="mt-3 field-error">
+            The flags could not be read ({read.error}).{" "}
+            <button type="button" className="underline" onClick={read.retry}>
+              Try again
+            </button>
+          </p>
+        ) : (
+          <p role="status" className="mt-3 text-caption text-basalt-soft">
+            {total ? `Reading the round's ${total} ${total === 1 ? "flag" : "flags"}…` : "Reading the round's flags…"}
+          </p>
+        )}
+      </section>
+    );
+  return <FlagsGrid flags={read.flags} mode={mode} runHref={runHref} title={title} />;
+}
+
+type RowsRead = { state: "reading" } | { state: "failed"; error: string; retry: () => void } | { state: "done"; flags: FlagView[] };
+
+/**
+ * The round's flags from the table's rows route, read once the page is on screen. A plain fetch, not
+ * a fetcher: fetchers' loads are read again after every action (each verdict), while a round's
+ * flags change only when its check lands; the browser revalidates with the route's entity tag.
+ */
+function useFlagTableRows(rowsHref: string): RowsRead {
+  const [attempt, setAttempt] = useState(0);
+  const [read, setRead] = useState<RowsRead>({ state: "reading" });
+  useEffect(() => {
+    const abort = new AbortController();
+    setRead({ state: "reading" });
+    fetch(rowsHref, { signal: abort.signal, headers: { accept: "application/json" } })
+      .then(async (res) => {
+        if (!res.ok) throw new Error(res.status === 404 ? "the round is no longer open to you" : `the server answered ${res.status}`);
+        const flags = expandFlagTable((await res.json()) as FlagTableData);
+        if (!abort.signal.aborted) setRead({ state: "done", flags });
+      })
+      .catch((e: unknown) => {
+        if (abort.signal.aborted) return;
+        setRead({ state: "failed", error: e instanceof Error && !(e instanceof SyntaxError) ? e.message : "the answer could not be read", retry: () => setAttempt((n) => n + 1) });
+      });
+    return () => abort.abort();
+  }, [rowsHref, attempt]);
+  return read;
+}
+
+function FlagsGrid({ flags, mode, runHref, title }: { flags: FlagView[]; mode: Mode; runHref?: (label: string) => string; title: string }) {
   const [params, setParams] = useSearchParams();
   const query = parseFlagQuery(params);
   // From the address as it is now: two quick changes (grouping, then a filter) must not undo each other,

@@ -226,7 +226,7 @@ export default function EditorialRound({ loaderData: d, actionData }: Route.Comp
       </section>
 
       <section className="card mt-6" id="flags">
-        <FlagsTable flags={d.flags} mode={mode} runHref={runHref} title="Flags and the reviewers' verdicts" />
+        <FlagsTable rowsHref={href("/venues/:venueId/submissions/:submissionId/rounds/:round/flags/table", p)} total={d.flagTotal} mode={mode} runHref={runHref} title="Flags and the reviewers' verdicts" />
       </section>
 
       <section className="card mt-6" aria-labelledby="dec-h">

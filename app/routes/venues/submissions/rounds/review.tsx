@@ -344,7 +344,7 @@ function ReviewWorkspace({ d, p }: { d: WorkspaceData; p: P }) {
             />
           </section>
           <section className="card" id="flags">
-            <FlagsTable flags={d.flags} mode={mode} runHref={runHref} />
+            <FlagsTable rowsHref={href("/venues/:venueId/submissions/:submissionId/rounds/:round/flags/table", p)} total={d.flagTotal} mode={mode} runHref={runHref} />
           </section>
           <section className="card" aria-labelledby="plots-h" id="plots">
             <h2 id="plots-h" className="text-lead">
