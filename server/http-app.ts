@@ -17,6 +17,7 @@ import {
   pagePath,
   takesUploads,
 } from "./request-rules";
+import { renderGate } from "./render-gate";
 
 export type HttpAppOptions = {
   /** The public address (APP_URL): its origin is ours, and https there turns on HSTS and Secure cookies. */
@@ -34,6 +35,8 @@ export type HttpAppOptions = {
   metrics: { registry: Registry; observe(kind: string, method: string, status: number, seconds: number): void };
   /** The React Router request handler; gets the nonce in `res.locals.nonce`. */
   handler: RequestHandler;
+  /** Page and data reads let through at once, and how many may wait (unset: no limit). */
+  renderLimit?: { concurrency: number; queue: number };
 };
 
 /** How the public API and the pages answer a refused request: JSON for the API, text for pages. */
@@ -205,6 +208,18 @@ export function createHttpApp(options: HttpAppOptions) {
     }
     next();
   });
+
+  // Page and data reads a few at a time, so probes, uploads and timers never wait behind a crowd of renders.
+  if (options.renderLimit) {
+    const gate = renderGate({
+      ...options.renderLimit,
+      refuse: (req, res) => {
+        res.set("retry-after", "2");
+        refuse(req, res, 503, "server_busy", "The server has more pages to prepare than it can queue; try again in a few seconds.");
+      },
+    });
+    app.use((req, res, next) => (SAFE_METHODS.has(req.method) && !req.path.startsWith("/api/") ? gate(req, res, next) : next()));
+  }
 
   app.use(options.handler);
 

@@ -27,6 +27,7 @@ export const app = createHttpApp({
   logger,
   readiness: readinessProbe({ db, s3: s3SettingsFromEnv(env), smtp: { host: env.SMTP_HOST, port: env.SMTP_PORT } }),
   metrics: createServerMetrics(db),
+  renderLimit: { concurrency: env.RENDER_CONCURRENCY, queue: env.RENDER_QUEUE },
   handler: createRequestHandler({
     build,
     mode: process.env.NODE_ENV,

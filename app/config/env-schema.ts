@@ -49,6 +49,10 @@ export const envSchema = z.object({
   METRICS_TOKEN: z.string().min(16, "must be at least 16 characters").optional(),
   /** Largest form or JSON body (bytes) a page action reads; uploads have UPLOAD_LIMIT_MB. */
   FORM_BODY_LIMIT_KB: z.coerce.number().int().min(8).max(10_240).default(256),
+  /** Page and data reads rendered at once per server process; more wait their turn (server/render-gate.ts). */
+  RENDER_CONCURRENCY: z.coerce.number().int().min(1).max(64).default(4),
+  /** Reads allowed to wait for a turn; one more is answered 503 with Retry-After. */
+  RENDER_QUEUE: z.coerce.number().int().min(0).max(10_000).default(500),
 }).superRefine((value, ctx) => {
   // A production server signing sessions and e-mail links with a public secret lets anyone forge them.
   if (value.NODE_ENV === "production" && KNOWN_AUTH_SECRETS.includes(value.AUTH_SECRET)) {
