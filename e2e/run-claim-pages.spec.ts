@@ -109,10 +109,12 @@ test("plots come from the run's plots route: none in the page's data, a repeat a
   const fx = fixture<Draft>("make-review-with-plots.ts", `Plots route ${Date.now()}`);
   await login(page, "author");
   const runUrl = `/venues/${fx.venueId}/submissions/${fx.submissionId}/rounds/1/runs/${fx.runIds["ref-A"]}`;
-  const plotReads: { url: string; status: number; ifNoneMatch?: string }[] = [];
+  const plotReads: { url: string; status: number; ifNoneMatch?: string; bodyBytes: number }[] = [];
   page.on("response", async (res) => {
-    if (!res.url().includes("/plots")) return;
-    plotReads.push({ url: res.url(), status: res.status(), ifNoneMatch: (await res.request().allHeaders())["if-none-match"] });
+    if (!new URL(res.url()).pathname.endsWith("/plots.data")) return;
+    await res.finished();
+    const bodyBytes = (await res.request().sizes()).responseBodySize;
+    plotReads.push({ url: res.url(), status: res.status(), ifNoneMatch: (await res.request().allHeaders())["if-none-match"], bodyBytes });
   });
   await page.goto(runUrl);
   await expect(page.getByTestId("series-chart").getByTestId("series-column-plot").first().locator(".recharts-surface")).toBeVisible();
@@ -132,12 +134,14 @@ test("plots come from the run's plots route: none in the page's data, a repeat a
   const again = await page.request.get(`${runUrl}/plots`, { headers: { "if-none-match": first.headers()["etag"]! } });
   expect(again.status()).toBe(304);
   expect(await again.text()).toBe("");
-  // A second visit: the browser revalidates its copy and the server answers 304.
+  // A second visit: the browser revalidates its copy with the tag, the server answers 304 (no body
+  // on the wire) and the browser hands the fetcher its cached copy (so the page sees 200).
   await page.reload();
   await expect(page.getByTestId("series-chart").getByTestId("series-column-plot").first().locator(".recharts-surface")).toBeVisible();
   await expect.poll(() => plotReads.length).toBe(2);
-  expect(plotReads[1]!.ifNoneMatch, "the browser asks with the tag it holds").toBeTruthy();
-  expect(plotReads[1]!.status).toBe(304);
+  expect(plotReads[0]!.bodyBytes).toBeGreaterThan(1000);
+  expect(plotReads[1]!.ifNoneMatch, "the browser asks with the tag it holds").toBe(first.headers()["etag"]);
+  expect(plotReads[1]!.bodyBytes, "a 304 carries no body").toBe(0);
 
   // The reviewer opens one run's plots: only that run's plots route is read, not its page.
   const context = await browser.newContext();
