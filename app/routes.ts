@@ -65,6 +65,7 @@ export default [
             route("runs", "routes/venues/submissions/rounds/runs/index.tsx"),
             route("runs/:runId", "routes/venues/submissions/rounds/runs/run.tsx"),
             route("runs/:runId/attachments", "routes/venues/submissions/rounds/runs/attachments.ts"),
+            route("runs/:runId/plots", "routes/venues/submissions/rounds/runs/plot-data.ts"),
             route("runs.csv", "routes/venues/submissions/rounds/runs-csv.ts"),
             route("claims", "routes/venues/submissions/rounds/claims/index.tsx"),
             route("claims/:claimId", "routes/venues/submissions/rounds/claims/claim.tsx"),

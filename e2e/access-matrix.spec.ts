@@ -78,6 +78,8 @@ const RULES: Record<string, Rule> = {
   },
   // Duplicating adds a run under a label of its own; deleting removes the matrix's run.
   "routes/venues/submissions/rounds/runs/run.tsx": { kind: "round", get: CONTENT, post: { edit: AUTHOR_WRITE, duplicate: AUTHOR_WRITE, delete: AUTHOR_WRITE }, destructive: ["delete"] },
+  // A run's plot copies (JSON read by the run page and the reviewer's workspace): exactly whom the run page answers.
+  "routes/venues/submissions/rounds/runs/plot-data.ts": { kind: "round", get: CONTENT },
   "routes/venues/submissions/rounds/runs/attachments.ts": {
     kind: "round",
     get: readers({ authors: "mmmm", reviewer: "--mm", editor: "-mmm" }),

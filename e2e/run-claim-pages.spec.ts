@@ -1,7 +1,8 @@
 /**
  * The claim page (stated values beside the recomputed ones, with the interval used and the
  * outcome in words), the run page's version diff and series statistics, the plots' log scale and
- * zoom, and the editor's "send the digest now" reaching the authors' mailboxes.
+ * zoom, the plots read from their own route (run page and reviewer), and the editor's "send the
+ * digest now" reaching the authors' mailboxes.
  */
 import AxeBuilder from "@axe-core/playwright";
 import { expect, test, type Page } from "@playwright/test";
@@ -102,6 +103,62 @@ test("run page: series statistics in the derived panel, log scale and zoom, and 
   // The choice sits in the URL: the other direction reads the other way round.
   await page.goto(`${runUrl}?from=2&to=1`);
   await expect(page.getByTestId("diff-row").locator("del")).toHaveText("2.5");
+});
+
+test("plots come from the run's plots route: none in the page's data, a repeat answered 304, one run at a time for the reviewer", async ({ page, browser }) => {
+  const fx = fixture<Draft>("make-review-with-plots.ts", `Plots route ${Date.now()}`);
+  await login(page, "author");
+  const runUrl = `/venues/${fx.venueId}/submissions/${fx.submissionId}/rounds/1/runs/${fx.runIds["ref-A"]}`;
+  const plotReads: { url: string; status: number; ifNoneMatch?: string; bodyBytes: number }[] = [];
+  page.on("response", async (res) => {
+    if (!new URL(res.url()).pathname.endsWith("/plots.data")) return;
+    await res.finished();
+    const bodyBytes = (await res.request().sizes()).responseBodySize;
+    plotReads.push({ url: res.url(), status: res.status(), ifNoneMatch: (await res.request().allHeaders())["if-none-match"], bodyBytes });
+  });
+  await page.goto(runUrl);
+  await expect(page.getByTestId("series-chart").getByTestId("series-column-plot").first().locator(".recharts-surface")).toBeVisible();
+  await expect(page.getByTestId("plots-loading")).toHaveCount(0);
+  expect(plotReads.map((r) => new URL(r.url).pathname)).toEqual([`${runUrl}/plots.data`]);
+  // The page's own data names the files but carries no points.
+  const pageData = await (await page.request.get(`${runUrl}.data`)).text();
+  expect(pageData).toContain("ref-A.csv");
+  expect(pageData).not.toContain('"points"');
+
+  // The route itself: column-wise JSON with a tag; the same tag again is answered 304 with no body (RFC 9110 §13.1.2).
+  const first = await page.request.get(`${runUrl}/plots`);
+  expect(first.status()).toBe(200);
+  expect(first.headers()["cache-control"]).toBe("private, no-cache");
+  const body = (await first.json()) as { series: { columns: string[]; y: Record<string, number[]> } };
+  expect(body.series.y[body.series.columns[0]!]!.length).toBeGreaterThan(10);
+  const again = await page.request.get(`${runUrl}/plots`, { headers: { "if-none-match": first.headers()["etag"]! } });
+  expect(again.status()).toBe(304);
+  expect(await again.text()).toBe("");
+  // A second visit: the browser revalidates its copy with the tag, the server answers 304 (no body
+  // on the wire) and the browser hands the fetcher its cached copy (so the page sees 200).
+  await page.reload();
+  await expect(page.getByTestId("series-chart").getByTestId("series-column-plot").first().locator(".recharts-surface")).toBeVisible();
+  await expect.poll(() => plotReads.length).toBe(2);
+  expect(plotReads[0]!.bodyBytes).toBeGreaterThan(1000);
+  expect(plotReads[1]!.ifNoneMatch, "the browser asks with the tag it holds").toBe(first.headers()["etag"]);
+  expect(plotReads[1]!.bodyBytes, "a 304 carries no body").toBe(0);
+
+  // The reviewer opens one run's plots: only that run's plots route is read, not its page.
+  const context = await browser.newContext();
+  const reviewer = await context.newPage();
+  await login(reviewer, "reviewer1");
+  const reads: string[] = [];
+  reviewer.on("request", (req) => {
+    if (req.url().includes("/runs/")) reads.push(new URL(req.url()).pathname);
+  });
+  await reviewer.goto(`/venues/${fx.venueId}/submissions/${fx.submissionId}/rounds/1/review`);
+  const item = reviewer.getByTestId("run-plots").filter({ hasText: "strat-B" });
+  await item.getByRole("button", { name: "Show the plots of strat-B" }).click();
+  await expect(item.getByTestId("series-chart")).toContainText("strat-B: time series");
+  await expect(item.getByTestId("series-stats")).toBeVisible();
+  expect(reads).toEqual([`/venues/${fx.venueId}/submissions/${fx.submissionId}/rounds/1/runs/${fx.runIds["strat-B"]}/plots.data`]);
+  await expect(reviewer.getByTestId("run-plots").filter({ hasText: "ref-A" }).getByTestId("series-chart")).toHaveCount(0);
+  await context.close();
 });
 
 test("the editor sends a submission's digest now: asked once with who gets it, then the authors have it", async ({ page }) => {

@@ -4,6 +4,7 @@ import { attachments, flags, roundRuns, runChecks, runs, runVersions, storedFile
 import type { RunRecord } from "~/checker/schema";
 import { seriesSummary } from "~/checker/derive";
 import type { SeriesStats } from "~/checker/series";
+import { encodeRunPlots, type RunPlotColumns } from "./plot-columns";
 import type { RunRow, SeriesPlot, SpectrumPlot } from "./view-types";
 
 export type { RunRow, SeriesPlot, SpectrumPlot };
@@ -179,11 +180,36 @@ function plotsOf(rows: PlotFileRow[], record: RunRecord) {
 }
 
 /**
- * Plots of one run version: the downsampled copies and the series window stored when the file
- * was analysed (`analysing` until the check job has analysed a new file).
+ * Plots of one run version, column-wise for the plots route: the downsampled copies and the
+ * series window stored when the file was analysed (`analysing` until the check job has analysed
+ * a new file).
  */
-export async function runPlots(db: Database, runVersionId: string, record: RunRecord) {
-  return plotsOf(await plotFiles(db, [runVersionId]), record);
+export async function runPlotColumns(db: Database, runVersionId: string, record: RunRecord): Promise<RunPlotColumns> {
+  return encodeRunPlots(plotsOf(await plotFiles(db, [runVersionId]), record));
+}
+
+/**
+ * The files of one run version and which plots they give, without the plot copies themselves
+ * (the run page lists the files and fetches the plots from the plots route once it is on screen).
+ * `plotKey` names the analysed files, so the page fetches the plots again when it changes.
+ */
+export async function runPlotFiles(db: Database, runVersionId: string) {
+  const rows = await db
+    .select({
+      id: attachments.id, kind: attachments.kind, rowCount: attachments.rowCount, filename: storedFiles.filename, size: storedFiles.size,
+      analysed: sql<boolean>`(${attachments.analysis} is not null and ${attachments.plot} is not null)`,
+    })
+    .from(attachments)
+    .innerJoin(storedFiles, eq(storedFiles.id, attachments.fileId))
+    .where(and(eq(attachments.runVersionId, runVersionId), eq(attachments.active, true), inArray(attachments.kind, ["series", "spectrum"])));
+  const analysed = rows.filter((r) => r.analysed);
+  return {
+    files: rows.map(({ analysed: _, ...file }) => file),
+    analysing: analysed.length < rows.length,
+    series: analysed.some((r) => r.kind === "series"),
+    spectrum: analysed.some((r) => r.kind === "spectrum"),
+    plotKey: analysed.map((r) => r.id).sort().join(","),
+  };
 }
 
 /** Plots of several run versions in one query (the reviewer's workspace shows every run). */

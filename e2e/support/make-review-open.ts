@@ -13,13 +13,18 @@ import { makeSentRound } from "./make-sent-round";
 
 export async function makeReviewOpen(db: Database, title: string) {
   const fx = await makeSentRound(db, title);
+  await acceptAsReviewer1(db, fx.roundId);
+  return fx;
+}
+
+/** The editor invites demo reviewer 1 to a sent round, and they accept. */
+export async function acceptAsReviewer1(db: Database, roundId: string) {
   const idOf = async (key: string) => (await db.select({ id: user.id }).from(user).where(eq(user.email, demoPeople.find((p) => p.key === key)!.email)))[0]!.id;
-  const inv = await inviteReviewer(db, { roundId: fx.roundId, email: demoPeople.find((p) => p.key === "reviewer1")!.email, dueAt: new Date(Date.now() + 14 * 86_400_000), editorId: await idOf("editor") });
+  const inv = await inviteReviewer(db, { roundId, email: demoPeople.find((p) => p.key === "reviewer1")!.email, dueAt: new Date(Date.now() + 14 * 86_400_000), editorId: await idOf("editor") });
   // The mailed token is unknown here; give the invitation one we know, and accept it.
   const { token, hash } = newToken();
   await db.update(invitations).set({ tokenHash: hash }).where(eq(invitations.id, inv.id));
   await respondToInvitation(db, { token, answer: "accept", userId: await idOf("reviewer1") });
-  return fx;
 }
 
 if (import.meta.url === `file://${process.argv[1]}`) {

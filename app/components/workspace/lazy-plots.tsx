@@ -6,6 +6,8 @@ import { lazy, Suspense, useEffect, useState, type ComponentType } from "react";
  * first render. Until then (and in the server's HTML) a placeholder of the chart's size stands in.
  */
 const charts = () => import("./plots");
+/** Starts fetching the charting chunk now (e.g. beside the plot data), so neither waits for the other. */
+export const preloadCharts = () => void charts().catch(() => undefined);
 const SeriesChartImpl = lazy(() => charts().then((m) => ({ default: m.SeriesChart })));
 const SpectrumChartImpl = lazy(() => charts().then((m) => ({ default: m.SpectrumChart })));
 const ComparisonChartImpl = lazy(() => charts().then((m) => ({ default: m.ComparisonChart })));

@@ -359,7 +359,7 @@ function ReviewWorkspace({ d, p }: { d: WorkspaceData; p: P }) {
                     key={r.runId}
                     label={r.label}
                     kinds={[r.series ? "time series" : "", r.spectrum ? "spectrum" : ""].filter(Boolean).join(" and ")}
-                    runHref={href("/venues/:venueId/submissions/:submissionId/rounds/:round/runs/:runId", { ...p, runId: r.runId })}
+                    plotsHref={href("/venues/:venueId/submissions/:submissionId/rounds/:round/runs/:runId/plots", { ...p, runId: r.runId })}
                   />
                 ))}
               </ul>

@@ -1,14 +1,13 @@
 import { data, Form, href, redirect } from "react-router";
 import { FlagsPanel } from "~/components/workspace/flags-panel";
-import { SeriesChart, SpectrumChart } from "~/components/workspace/lazy-plots";
+import { RunPlotsPanel } from "~/components/workspace/run-plots-panel";
 import { RunForm } from "~/components/workspace/run-form";
 import { CsvUpload } from "~/components/workspace/upload";
-import type { RunRecord } from "~/checker/schema";
 import { env } from "~/config/env.server";
 import { serviceError } from "~/workspace/action-errors.server";
 import { requireRound } from "~/access/page-guards.server";
 import { flagPanelView } from "~/workspace/flag-panel.server";
-import { runPlots, storedDerived } from "~/workspace/round-data.server";
+import { runPlotFiles, storedDerived } from "~/workspace/round-data.server";
 import { DERIVED_LABELS, recordLines } from "~/review/pdf/run-record";
 import { sig4 } from "~/lib/sig-figs";
 import { fieldId, fieldForQuantity, formToRecord, recordToValues } from "~/workspace/run-form-fields";
@@ -50,7 +49,8 @@ export async function loader(args: Route.LoaderArgs) {
   const run = await runOfRound(db, round.id, args.params.runId);
   const [history, plots, flags, derived] = await Promise.all([
     runVersionHistory(db, run.runId),
-    runPlots(db, run.versionId, run.record as RunRecord),
+    // The files and which plots they give; the points come from the plots route once the page is on screen.
+    runPlotFiles(db, run.versionId),
     flagPanelView(db, round.id, { scope: { run: run.label }, groupings: ["rule", "claim"], params: new URL(args.request.url).searchParams }),
     storedDerived(db, run.versionId),
   ]);
@@ -248,8 +248,12 @@ export default function Run({ loaderData: d, actionData, params }: Route.Compone
             Analysing the uploaded file… its plot and statistics appear here when the check is done.
           </p>
         ) : null}
-        {d.plots.series ? <SeriesChart plot={d.plots.series} title="Time series" showStats={false} /> : d.plots.analysing ? null : <p className="text-caption">No time series attached.</p>}
-        {d.plots.spectrum ? <SpectrumChart plot={d.plots.spectrum} title="Spectrum" /> : <p className="text-caption">No spectrum attached.</p>}
+        <RunPlotsPanel
+          plotsHref={href("/venues/:venueId/submissions/:submissionId/rounds/:round/runs/:runId/plots", { ...p, runId: d.run.runId })}
+          has={{ series: d.plots.series, spectrum: d.plots.spectrum }}
+          plotKey={d.plots.plotKey}
+          analysing={d.plots.analysing}
+        />
         {d.plots.files.length ? (
           <ul className="text-caption" data-testid="attachments">
             {d.plots.files.map((f) => (
