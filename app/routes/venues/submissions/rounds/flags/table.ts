@@ -1,5 +1,5 @@
-import { createHash } from "node:crypto";
 import { requireRound } from "~/access/page-guards.server";
+import { jsonWithEtag } from "~/lib/conditional-get.server";
 import { roundFlagTable } from "~/workspace/flags-query.server";
 import type { Route } from "./+types/table";
 
@@ -10,10 +10,5 @@ import type { Route } from "./+types/table";
  */
 export async function loader(args: Route.LoaderArgs) {
   const { db, access } = await requireRound(args, "read-flags");
-  const body = JSON.stringify(await roundFlagTable(db, access.round.id));
-  const tag = `"${createHash("sha1").update(body).digest("base64url")}"`;
-  const headers = { "content-type": "application/json; charset=utf-8", "cache-control": "private, no-cache", etag: tag, vary: "cookie" };
-  const asked = args.request.headers.get("if-none-match");
-  if (asked && asked.split(",").some((t) => t.trim().replace(/^W\//, "") === tag)) return new Response(null, { status: 304, headers });
-  return new Response(body, { headers });
+  return jsonWithEtag(args.request, await roundFlagTable(db, access.round.id));
 }
