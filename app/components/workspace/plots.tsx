@@ -98,7 +98,7 @@ export function SeriesChart({ plot, title, showStats = true }: { plot: SeriesPlo
   return (
     <figure data-testid="series-chart">
       <figcaption className="text-caption font-semibold">
-        {title} — transient shaded amber up to t = {formatNumber(plot.windowStart)}, averaging window shaded green ({plot.rows} samples; the plot shows at most 600
+        {title} — transient shaded amber up to t = {formatNumber(plot.windowStart)}, averaging window shaded green ({plot.rows.toLocaleString("en")} samples; the plot shows at most 600
         per column)
       </figcaption>
       <ClientOnly fallback={box("Loading the plot…")}>
