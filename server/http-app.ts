@@ -12,6 +12,7 @@ import {
   acceptsRawBody,
   bodyLimitFor,
   isExemptFromOriginCheck,
+  isFileDownload,
   isFormBody,
   originAllowed,
   pagePath,
@@ -218,7 +219,8 @@ export function createHttpApp(options: HttpAppOptions) {
         refuse(req, res, 503, "server_busy", "The server has more pages to prepare than it can queue; try again in a few seconds.");
       },
     });
-    app.use((req, res, next) => (SAFE_METHODS.has(req.method) && !req.path.startsWith("/api/") ? gate(req, res, next) : next()));
+    // Files are not held: a slow client reading a large PDF would keep a turn for the whole download.
+    app.use((req, res, next) => (SAFE_METHODS.has(req.method) && !req.path.startsWith("/api/") && !isFileDownload(req.path) ? gate(req, res, next) : next()));
   }
 
   app.use(options.handler);

@@ -6,6 +6,11 @@ export type RenderGateOptions = {
   concurrency: number;
   /** Reads allowed to wait; one more is answered 503 at once with Retry-After. */
   queue: number;
+  /**
+   * The longest a read keeps its turn: past it the next read goes in even if this answer is still
+   * being sent (a client reading slowly must not hold the door). Default 10 s.
+   */
+  maxHoldMs?: number;
   /** Answers a read refused because the queue is full. */
   refuse: RequestHandler;
 };
@@ -24,10 +29,16 @@ export function renderGate(options: RenderGateOptions): RequestHandler & { inFli
     void limit(
       () =>
         new Promise<void>((done) => {
-          // The slot is free when the answer is sent or the client goes away, whichever comes first.
-          res.once("finish", done);
-          res.once("close", done);
-          if (res.destroyed) return done();
+          // The turn ends when the answer is sent, the client goes away or the hold runs out, whichever comes first.
+          const timer = setTimeout(done, options.maxHoldMs ?? 10_000);
+          timer.unref();
+          const end = () => {
+            clearTimeout(timer);
+            done();
+          };
+          res.once("finish", end);
+          res.once("close", end);
+          if (res.destroyed) return end();
           next();
         }),
     );

@@ -23,6 +23,11 @@ export function takesUploads(path: string): boolean {
   return page.startsWith("/api/v1/") || /\/(attachments|files|runs)$/.test(page);
 }
 
+/** Files sent whole to the client (PDFs, CSV exports, downloads): a slow reader holds the answer open for long. */
+export function isFileDownload(path: string): boolean {
+  return /\.(pdf|csv)$/.test(path) || /\/downloads?\//.test(path);
+}
+
 /** Raw (non-form) bodies are for the public API, the auth endpoint and CSV uploads only. */
 export function acceptsRawBody(path: string): boolean {
   const page = pagePath(path);

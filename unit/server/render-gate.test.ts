@@ -1,5 +1,7 @@
+import { EventEmitter } from "node:events";
 import type { RequestHandler } from "express";
 import { afterEach, describe, expect, it } from "vitest";
+import { renderGate } from "../../server/render-gate";
 import { startHarness, type Harness } from "./harness";
 
 /** A handler that holds each read until the test lets it go, counting how many it holds at once. */
@@ -80,5 +82,30 @@ describe("page and data reads are let through a few at a time", () => {
     expect(t.most()).toBe(1);
     t.releaseAll();
     expect(await (await second).text()).toBe("done /second");
+  });
+
+  it("lets the next read in when a turn is held too long, and never holds file downloads", async () => {
+    const t = heldHandler();
+    h = await startHarness({ handler: t.handler, renderLimit: { concurrency: 1, queue: 5 } });
+    const url = h.url;
+    const page = fetch(`${url}/slow-page`);
+    await until(() => t.seen.includes("/slow-page"), "the first read in flight");
+    // A PDF goes past the gate although its one turn is taken.
+    const pdf = fetch(`${url}/venues/v/submissions/s/rounds/1/packet.pdf`);
+    await until(() => t.seen.some((p) => p.endsWith("packet.pdf")), "the download let through");
+    t.releaseAll();
+    expect((await page).status).toBe(200);
+    expect((await pdf).status).toBe(200);
+
+    // The gate on its own: a turn held past maxHoldMs lets the next read in.
+    const gate = renderGate({ concurrency: 1, queue: 5, maxHoldMs: 100, refuse: () => {} });
+    const reached: string[] = [];
+    const fakeRes = () => Object.assign(new EventEmitter(), { destroyed: false }) as never;
+    gate({} as never, fakeRes(), () => reached.push("first"));
+    gate({} as never, fakeRes(), () => reached.push("second"));
+    await new Promise((r) => setTimeout(r, 30));
+    expect(reached).toEqual(["first"]);
+    await until(() => reached.length === 2, "the second read after the hold ran out");
+    expect(gate.inFlight()).toBe(1);
   });
 });
