@@ -76,7 +76,8 @@ async function untilChecked(sql: postgres.Sql, roundId: string, t0: number) {
   throw new Error("the round's check did not land within 5 minutes");
 }
 
-type Page = { name: string; path: string; cookie?: string };
+/** `json`: a route answering JSON (no scripts of its own to count). */
+type Page = { name: string; path: string; cookie?: string; json?: boolean };
 
 async function main() {
   const db = await freshDatabase();
@@ -112,6 +113,9 @@ async function main() {
       { name: "reviewer's workspace", path: `${round}/review`, cookie: reviewer },
       { name: "editor's round page", path: `${round}/desk`, cookie: editor },
       { name: "flags view (editor, overview)", path: round, cookie: editor },
+      // What those pages read after they are on screen.
+      { name: "flags table rows (reviewer)", path: `${round}/flags/table`, cookie: reviewer, json: true },
+      { name: "a run's plot copies", path: `${round}/runs/${w.runIds[0]}/plots`, cookie: author, json: true },
     ];
     const statements = new Map<string, number[]>();
     const count = async (pages: Page[]) => {
@@ -131,7 +135,7 @@ async function main() {
         const r = await load(BASE + p.path, { cookie: p.cookie, connections: CONNECTIONS, seconds: SECONDS });
         const l = await loopStats(server);
         if (p.path === "/healthz") floor = r.rps;
-        const js = p.path === "/healthz" ? null : await jsGzip(BASE, p.path, p.cookie);
+        const js = p.path === "/healthz" || p.json ? null : await jsGzip(BASE, p.path, p.cookie);
         const n = statements.get(p.name);
         // CPU time per answered request: what the page costs the server whatever else the machine does.
         const cpuPerRequest = r.total ? l.cpuMs / r.total : Number.NaN;
