@@ -5,7 +5,7 @@
  * digest now" reaching the authors' mailboxes.
  */
 import AxeBuilder from "@axe-core/playwright";
-import { expect, test, type Page } from "@playwright/test";
+import { expect, test, type Page, type Route } from "@playwright/test";
 import { mailsTo } from "./support/mail";
 import { fixture } from "./support/review";
 import { demo, login } from "./support/session";
@@ -70,6 +70,19 @@ test("claim page: each stated value beside the recomputed one, its interval and 
   const missing = await page.request.get(`/venues/${fx.venueId}/submissions/${fx.submissionId}/rounds/1/claims/00000000-0000-4000-8000-000000000000/plots`);
   expect(missing.status()).toBe(404);
   expect(((await missing.json()) as { error: { message: string } }).error.message).toContain("not in the round");
+  // When the route refuses (here the chart's read is sent to that missing claim), the chart's place says so and "Try again" reads it again.
+  const refused = `/venues/${fx.venueId}/submissions/${fx.submissionId}/rounds/1/claims/00000000-0000-4000-8000-000000000000/plots.data`;
+  const toRefused = (route: Route) => route.continue({ url: new URL(refused + new URL(route.request().url()).search, route.request().url()).toString() });
+  await page.route("**/claims/*/plots.data*", toRefused);
+  await page.reload();
+  const failed = page.getByTestId("plots-error");
+  await expect(failed).toContainText("The plots could not be loaded: This claim is not in the round, or you may not see it.");
+  await expect(page.getByTestId("comparison-chart")).toHaveCount(0);
+  await expect(page.getByTestId("stated-values")).toBeVisible();
+  await page.unroute("**/claims/*/plots.data*", toRefused);
+  await failed.getByRole("button", { name: "Try again" }).click();
+  await expect(overlay.locator("svg .recharts-line").first()).toBeVisible();
+  await expect(failed).toHaveCount(0);
 
   // The parameter-space chart on the overview: run labels drawn, none on top of another.
   await page.goto(`/venues/${fx.venueId}/submissions/${fx.submissionId}/rounds/1`);
