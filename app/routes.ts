@@ -69,6 +69,7 @@ export default [
             route("runs.csv", "routes/venues/submissions/rounds/runs-csv.ts"),
             route("claims", "routes/venues/submissions/rounds/claims/index.tsx"),
             route("claims/:claimId", "routes/venues/submissions/rounds/claims/claim.tsx"),
+            route("claims/:claimId/plots", "routes/venues/submissions/rounds/claims/claim-plot-data.ts"),
             route("flags", "routes/venues/submissions/rounds/flags/rows.ts"),
             route("flags/table", "routes/venues/submissions/rounds/flags/table.ts"),
             route("flags/:flagId/answer", "routes/venues/submissions/rounds/flags/answer.ts"),

@@ -88,6 +88,8 @@ const RULES: Record<string, Rule> = {
   "routes/venues/submissions/rounds/runs-csv.ts": { kind: "round", get: CONTENT },
   "routes/venues/submissions/rounds/claims/index.tsx": { kind: "round", get: CONTENT, post: { create: AUTHOR_WRITE } },
   "routes/venues/submissions/rounds/claims/claim.tsx": { kind: "round", get: CONTENT, post: { update: AUTHOR_WRITE, delete: AUTHOR_WRITE }, destructive: ["delete"] },
+  // The series copies of a claim's runs (JSON read by the claim page's comparison chart): exactly whom the claim page answers.
+  "routes/venues/submissions/rounds/claims/claim-plot-data.ts": { kind: "round", get: CONTENT },
   // The flags panel's rows, read when a group is opened: whoever may read the round's flags.
   "routes/venues/submissions/rounds/flags/rows.ts": { kind: "round", get: CONTENT },
   // Every flag for the reviewers' and the editor's table, read after the page: the same readers.

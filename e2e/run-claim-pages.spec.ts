@@ -1,11 +1,11 @@
 /**
  * The claim page (stated values beside the recomputed ones, with the interval used and the
  * outcome in words), the run page's version diff and series statistics, the plots' log scale and
- * zoom, the plots read from their own route (run page and reviewer), and the editor's "send the
+ * zoom, the plots read from their own route (run page, reviewer and claim page), and the editor's "send the
  * digest now" reaching the authors' mailboxes.
  */
 import AxeBuilder from "@axe-core/playwright";
-import { expect, test, type Page } from "@playwright/test";
+import { expect, test, type Page, type Route } from "@playwright/test";
 import { mailsTo } from "./support/mail";
 import { fixture } from "./support/review";
 import { demo, login } from "./support/session";
@@ -21,10 +21,15 @@ async function seriousViolations(page: Page) {
   return results.violations.filter((v) => v.impact === "serious" || v.impact === "critical").map((v) => `${v.id}: ${v.help} (${v.nodes.map((n) => n.target.join(" ")).join(", ")})`);
 }
 
-test("claim page: each stated value beside the recomputed one, its interval and the outcome in words; the claim's runs overlaid", async ({ page }) => {
+test("claim page: each stated value beside the recomputed one, its interval and the outcome in words; the claim's runs overlaid from the claim's plots route", async ({ page }) => {
   const fx = fixture<Draft>("make-checked-draft.ts", `Claim page ${Date.now()}`);
   await login(page, "author");
-  await page.goto(`/venues/${fx.venueId}/submissions/${fx.submissionId}/rounds/1/claims/${fx.claimId}`);
+  const claimUrl = `/venues/${fx.venueId}/submissions/${fx.submissionId}/rounds/1/claims/${fx.claimId}`;
+  const plotReads: string[] = [];
+  page.on("request", (req) => {
+    if (new URL(req.url()).pathname.endsWith("/plots.data")) plotReads.push(new URL(req.url()).pathname);
+  });
+  await page.goto(claimUrl);
   const table = page.getByTestId("stated-values");
   await expect(table).toBeVisible();
   // examples/claims/layer-zonal-flow.json: E "1 × 10^-4" for both runs → [5 × 10⁻⁵, 1.5 × 10⁻⁴) (family B: half a unit in the last digit).
@@ -42,7 +47,42 @@ test("claim page: each stated value beside the recomputed one, its interval and 
   await expect(overlay).toContainText("ref-A, strat-B");
   await expect(overlay.locator("svg .recharts-line").first()).toBeVisible();
   expect(await overlay.locator(".recharts-legend-item").count()).toBeGreaterThanOrEqual(2);
+  await expect(page.getByTestId("plots-loading")).toHaveCount(0);
   expect(await seriousViolations(page), "claim page").toEqual([]);
+  // The overlay came from the claim's own plots route, read once after the page was on screen.
+  expect(plotReads).toEqual([`${claimUrl}/plots.data`]);
+  // The page's own data names the claim's runs but carries no points (neither as objects nor as columns).
+  const pageData = await (await page.request.get(`${claimUrl}.data`)).text();
+  expect(pageData).toContain("strat-B");
+  expect(pageData).not.toContain('"points"');
+  expect(pageData).not.toMatch(/"[xy]"/);
+  // The route: both runs' series column-wise, with a tag; the same tag again is answered 304 with no body (RFC 9110 §13.1.2).
+  const first = await page.request.get(`${claimUrl}/plots`);
+  expect(first.status()).toBe(200);
+  expect(first.headers()["cache-control"]).toBe("private, no-cache");
+  const body = (await first.json()) as { runs: { label: string; series: { columns: string[]; y: Record<string, number[]> } }[] };
+  expect(body.runs.map((r) => r.label)).toEqual(["ref-A", "strat-B"]);
+  for (const r of body.runs) expect(r.series.y[r.series.columns[0]!]!.length).toBeGreaterThan(10);
+  const again = await page.request.get(`${claimUrl}/plots`, { headers: { "if-none-match": first.headers()["etag"]! } });
+  expect(again.status()).toBe(304);
+  expect(await again.text()).toBe("");
+  // A claim that is not in the round: the route's own 404 as JSON, not the error page.
+  const missing = await page.request.get(`/venues/${fx.venueId}/submissions/${fx.submissionId}/rounds/1/claims/00000000-0000-4000-8000-000000000000/plots`);
+  expect(missing.status()).toBe(404);
+  expect(((await missing.json()) as { error: { message: string } }).error.message).toContain("not in the round");
+  // When the route refuses (here the chart's read is sent to that missing claim), the chart's place says so and "Try again" reads it again.
+  const refused = `/venues/${fx.venueId}/submissions/${fx.submissionId}/rounds/1/claims/00000000-0000-4000-8000-000000000000/plots.data`;
+  const toRefused = (route: Route) => route.continue({ url: new URL(refused + new URL(route.request().url()).search, route.request().url()).toString() });
+  await page.route("**/claims/*/plots.data*", toRefused);
+  await page.reload();
+  const failed = page.getByTestId("plots-error");
+  await expect(failed).toContainText("The plots could not be loaded: This claim is not in the round, or you may not see it.");
+  await expect(page.getByTestId("comparison-chart")).toHaveCount(0);
+  await expect(page.getByTestId("stated-values")).toBeVisible();
+  await page.unroute("**/claims/*/plots.data*", toRefused);
+  await failed.getByRole("button", { name: "Try again" }).click();
+  await expect(overlay.locator("svg .recharts-line").first()).toBeVisible();
+  await expect(failed).toHaveCount(0);
 
   // The parameter-space chart on the overview: run labels drawn, none on top of another.
   await page.goto(`/venues/${fx.venueId}/submissions/${fx.submissionId}/rounds/1`);

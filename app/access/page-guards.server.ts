@@ -55,6 +55,20 @@ export async function requireRound(args: Args, action: Action) {
   return { user, db, access };
 }
 
+/**
+ * For routes a fetcher reads (JSON): the same check, but a refusal that would be the policy's 404
+ * comes back as null so the route can return its own 404 — a fetcher's thrown error would replace
+ * the whole page with the error view. A redirect to sign in goes on as it is.
+ */
+export async function requireRoundOrNull(args: Args, action: Action) {
+  const { user, db } = await requireUser(args);
+  const access = await roundOf(args, user);
+  if (access && access.can(action)) return { user, db, access };
+  const refused = refusal(access, action);
+  if (refused.init?.status === 404) return null;
+  throw refused;
+}
+
 function refusal(access: RoundAccess | null | undefined, action: Action) {
   if (access && AUTHOR_WRITES.has(action) && access.state !== "draft" && access.can("read-details")) {
     return data(`Round ${access.round.number} was sent to the editor and is frozen; changes go into the next round.`, { status: 409 });

@@ -16,6 +16,18 @@ export async function roundClaims(db: Db, roundId: string) {
   return db.select().from(claims).where(eq(claims.roundId, roundId)).orderBy(asc(claims.position), asc(claims.updatedAt));
 }
 
+/** One claim of a round, or undefined when the round has no such claim (or the id is not one). */
+export async function roundClaim(db: Db, roundId: string, claimId: string) {
+  if (!/^[0-9a-f-]{36}$/i.test(claimId)) return undefined;
+  const [row] = await db.select().from(claims).where(and(eq(claims.id, claimId), eq(claims.roundId, roundId)));
+  return row;
+}
+
+/** The labels of the runs a claim names, once each (at most 200: what its overlay may draw). */
+export function claimRunLabels(record: unknown): string[] {
+  return [...new Set(((record as { runs?: { label: string }[] } | null)?.runs ?? []).map((r) => r.label))].slice(0, 200);
+}
+
 export async function createClaim(db: Db, roundId: string, input: ClaimInput) {
   const record = parseClaimRecord(input.record);
   const [{ last } = { last: 0 }] = await db.select({ last: max(claims.position) }).from(claims).where(eq(claims.roundId, roundId));

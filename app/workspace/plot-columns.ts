@@ -65,3 +65,16 @@ export function encodeRunPlots(plots: RunPlotPoints): RunPlotColumns {
 export function decodeRunPlots(plots: RunPlotColumns): RunPlotPoints {
   return { series: plots.series && decodeSeries(plots.series), spectrum: plots.spectrum && decodeSpectrum(plots.spectrum), analysing: plots.analysing };
 }
+
+/** What a claim's plots route answers: the series of the claim's runs, one per run, to overlay (`analysing`: a series file of them is not analysed yet). */
+export type ClaimOverlayColumns = { runs: { label: string; series: SeriesColumns }[]; analysing: boolean };
+/** The same with points, as the comparison chart takes them. */
+export type ClaimOverlayPoints = { runs: { label: string; plot: SeriesPlot }[]; analysing: boolean };
+
+export function encodeClaimOverlay(overlay: ClaimOverlayPoints): ClaimOverlayColumns {
+  return { runs: overlay.runs.map((r) => ({ label: r.label, series: encodeSeries(r.plot) })), analysing: overlay.analysing };
+}
+
+export function decodeClaimOverlay(overlay: ClaimOverlayColumns): ClaimOverlayPoints {
+  return { runs: overlay.runs.map((r) => ({ label: r.label, plot: decodeSeries(r.series) })), analysing: overlay.analysing };
+}

@@ -4,7 +4,7 @@ import { attachments, flags, roundRuns, runChecks, runs, runVersions, storedFile
 import type { RunRecord } from "~/checker/schema";
 import { seriesSummary } from "~/checker/derive";
 import type { SeriesStats } from "~/checker/series";
-import { encodeRunPlots, type RunPlotColumns } from "./plot-columns";
+import { encodeClaimOverlay, encodeRunPlots, type ClaimOverlayColumns, type RunPlotColumns } from "./plot-columns";
 import type { RunRow, SeriesPlot, SpectrumPlot } from "./view-types";
 
 export type { RunRow, SeriesPlot, SpectrumPlot };
@@ -140,13 +140,13 @@ type PlotFileRow = {
   plot: import("~db/schema").AttachmentPlot | null; rowCount: number; filename: string; size: number;
 };
 
-function plotFiles(db: Database, runVersionIds: string[]): Promise<PlotFileRow[]> {
+function plotFiles(db: Database, runVersionIds: string[], kinds: PlotFileRow["kind"][] = ["series", "spectrum"]): Promise<PlotFileRow[]> {
   if (!runVersionIds.length) return Promise.resolve([]);
   return db
     .select({ id: attachments.id, runVersionId: attachments.runVersionId, kind: attachments.kind, analysis: attachments.analysis, plot: attachments.plot, rowCount: attachments.rowCount, filename: storedFiles.filename, size: storedFiles.size })
     .from(attachments)
     .innerJoin(storedFiles, eq(storedFiles.id, attachments.fileId))
-    .where(and(inArray(attachments.runVersionId, runVersionIds), eq(attachments.active, true), inArray(attachments.kind, ["series", "spectrum"])));
+    .where(and(inArray(attachments.runVersionId, runVersionIds), eq(attachments.active, true), inArray(attachments.kind, kinds)));
 }
 
 function plotsOf(rows: PlotFileRow[], record: RunRecord) {
@@ -212,8 +212,32 @@ export async function runPlotFiles(db: Database, runVersionId: string) {
   };
 }
 
-/** Plots of several run versions in one query (the reviewer's workspace shows every run). */
-export async function runPlotsMany(db: Database, versions: { versionId: string; label: string; record: unknown }[]) {
-  const rows = await plotFiles(db, versions.map((v) => v.versionId));
-  return versions.map((v) => ({ label: v.label, ...plotsOf(rows.filter((r) => r.runVersionId === v.versionId), v.record as RunRecord) }));
+/**
+ * Which of a claim's runs (one version each) have an analysed series to overlay, without the plot
+ * copies (the claim page names them and fetches the overlay once it is on screen). `overlayKey`
+ * names the analysed files, so the page fetches the overlay again when it changes.
+ */
+export async function claimOverlayRuns(db: Database, versions: { versionId: string; label: string }[]) {
+  const rows = versions.length
+    ? await db
+        .select({ id: attachments.id, runVersionId: attachments.runVersionId, analysed: sql<boolean>`(${attachments.analysis} is not null and ${attachments.plot} is not null)` })
+        .from(attachments)
+        .where(and(inArray(attachments.runVersionId, versions.map((v) => v.versionId)), eq(attachments.active, true), eq(attachments.kind, "series")))
+    : [];
+  const analysed = rows.filter((r) => r.analysed);
+  return {
+    labels: versions.filter((v) => analysed.some((r) => r.runVersionId === v.versionId)).map((v) => v.label),
+    analysing: analysed.length < rows.length,
+    overlayKey: analysed.map((r) => r.id).sort().join(","),
+  };
+}
+
+/** The series of several run versions in one query, column-wise for a claim's plots route (its runs overlaid). */
+export async function claimOverlayColumns(db: Database, versions: { versionId: string; label: string; record: unknown }[]): Promise<ClaimOverlayColumns> {
+  const rows = await plotFiles(db, versions.map((v) => v.versionId), ["series"]);
+  const plots = versions.map((v) => ({ label: v.label, ...plotsOf(rows.filter((r) => r.runVersionId === v.versionId), v.record as RunRecord) }));
+  return encodeClaimOverlay({
+    runs: plots.flatMap((p) => (p.series ? [{ label: p.label, plot: p.series }] : [])),
+    analysing: plots.some((p) => p.analysing),
+  });
 }

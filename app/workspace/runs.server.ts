@@ -116,6 +116,17 @@ export async function roundRunsLabelled(db: Tx | import("~db/client").Database, 
   return labels.length ? roundRunRows(db).where(and(eq(roundRuns.roundId, roundId), inArray(runs.label, labels))).orderBy(runs.label) : [];
 }
 
+/** The runs of a round with the given labels: the version the round uses, without its record. */
+export async function roundRunVersionsLabelled(db: Tx | import("~db/client").Database, roundId: string, labels: string[]) {
+  if (!labels.length) return [];
+  return db
+    .select({ label: runs.label, versionId: roundRuns.runVersionId })
+    .from(roundRuns)
+    .innerJoin(runs, eq(runs.id, roundRuns.runId))
+    .where(and(eq(roundRuns.roundId, roundId), inArray(runs.label, labels)))
+    .orderBy(runs.label);
+}
+
 /** One run of a round with the version the round uses, or undefined when the round has no such run. */
 export async function roundRun(db: Tx | import("~db/client").Database, roundId: string, runId: string) {
   const [run] = await roundRunRows(db).where(and(eq(roundRuns.roundId, roundId), eq(roundRuns.runId, runId)));

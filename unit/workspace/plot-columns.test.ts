@@ -2,7 +2,7 @@ import fc from "fast-check";
 import { describe, expect, it } from "vitest";
 import { etagMatches, etagOf, jsonWithEtag } from "~/lib/conditional-get.server";
 import { analyseColumns } from "~/workspace/attachment-analysis";
-import { decodeRunPlots, decodeSeries, decodeSpectrum, encodeRunPlots, encodeSeries, encodeSpectrum } from "~/workspace/plot-columns";
+import { decodeClaimOverlay, decodeRunPlots, decodeSeries, decodeSpectrum, encodeClaimOverlay, encodeRunPlots, encodeSeries, encodeSpectrum } from "~/workspace/plot-columns";
 import type { SeriesPlot, SpectrumPlot } from "~/workspace/view-types";
 
 /** As the plots travel: encoded on the server, through JSON, decoded in the browser. */
@@ -71,6 +71,15 @@ describe("plot copies sent column-wise (encode on the server, decode in the brow
     expect(sent.y.magnetic).toHaveLength(41);
     expect(decodeSpectrum(sent)).toEqual(plot);
     expect(decodeRunPlots(travel(encodeRunPlots({ series: null, spectrum: plot, analysing: true })))).toEqual({ series: null, spectrum: plot, analysing: true });
+  });
+
+  it("gives back a claim's overlay exactly: each run's series with its label, in order", () => {
+    const overlay = { runs: [{ label: "ref-A", plot: storedSeries(20_000) }, { label: "strat-B", plot: storedSeries(300) }], analysing: false };
+    const sent = travel(encodeClaimOverlay(overlay));
+    expect(sent.runs.map((r) => r.label)).toEqual(["ref-A", "strat-B"]);
+    expect(JSON.stringify(sent)).not.toContain('"points"');
+    expect(decodeClaimOverlay(sent)).toEqual(overlay);
+    expect(decodeClaimOverlay(travel(encodeClaimOverlay({ runs: [], analysing: true })))).toEqual({ runs: [], analysing: true });
   });
 
   it("is far smaller than one object per point (the reason for it)", () => {

@@ -1,24 +1,22 @@
-import { and, eq } from "drizzle-orm";
-import { data, Form, href, redirect } from "react-router";
-import { claims } from "~db/schema";
+import { Form, href, redirect } from "react-router";
 import { ClaimEditor, claimDraftOf } from "~/components/workspace/claim-editor";
 import { FlagsPanel } from "~/components/workspace/flags-panel";
 import { serviceError } from "~/workspace/action-errors.server";
-import { requireRound } from "~/access/page-guards.server";
+import { notFound, requireRound } from "~/access/page-guards.server";
+import { claimRunLabels, roundClaim } from "~/workspace/claims.server";
 import { flagPanelView } from "~/workspace/flag-panel.server";
 import { changeClaim, parseJsonText, removeClaim } from "~/workspace/run-edits.server";
-import { roundRunLabels, roundRunsLabelled, type roundRunList } from "~/workspace/runs.server";
-import { runPlotsMany } from "~/workspace/round-data.server";
-import { ComparisonChart } from "~/components/workspace/lazy-plots";
+import { roundRunLabels, roundRunVersionsLabelled } from "~/workspace/runs.server";
+import { claimOverlayRuns } from "~/workspace/round-data.server";
+import { ClaimOverlayPanel } from "~/components/workspace/claim-overlay-panel";
 import { StatedTable } from "~/components/workspace/stated-table";
 import type { Route } from "./+types/claim";
 
 export const meta: Route.MetaFunction = () => [{ title: "Claim · Runproof" }];
 
-async function claimOfRound(db: Parameters<typeof roundRunList>[0], roundId: string, claimId: string) {
-  if (!/^[0-9a-f-]{36}$/i.test(claimId)) throw data("Not found", { status: 404 });
-  const [row] = await db.select().from(claims).where(and(eq(claims.id, claimId), eq(claims.roundId, roundId)));
-  if (!row) throw data("Not found", { status: 404 });
+async function claimOfRound(db: Parameters<typeof roundClaim>[0], roundId: string, claimId: string) {
+  const row = await roundClaim(db, roundId, claimId);
+  if (!row) throw notFound();
   return row;
 }
 
@@ -26,17 +24,18 @@ export async function loader(args: Route.LoaderArgs) {
   const { db, access } = await requireRound(args, "read-claims");
   const { round } = access;
   const claim = await claimOfRound(db, round.id, args.params.claimId);
-  // The runs of the claim with an attached series, overlaid on one plot (stored downsampled copies).
-  const named = [...new Set(((claim.record as { runs?: { label: string }[] }).runs ?? []).map((r) => r.label))].slice(0, 200);
+  // The runs of the claim with an analysed series, overlaid on one plot: the page names them; the
+  // chart reads their stored downsampled copies from the claim's plots route once on screen.
+  const named = claimRunLabels(claim.record);
   const [runs, flags, claimRuns] = await Promise.all([
     roundRunLabels(db, round.id),
     flagPanelView(db, round.id, { scope: { claim: claim.id }, groupings: ["rule", "run"], params: new URL(args.request.url).searchParams }),
-    named.length > 1 ? roundRunsLabelled(db, round.id, named) : [],
+    named.length > 1 ? roundRunVersionsLabelled(db, round.id, named) : [],
   ]);
-  const plots = claimRuns.length > 1 ? await runPlotsMany(db, claimRuns.map((r) => ({ versionId: r.versionId, label: r.label, record: r.record }))) : [];
+  const overlay = claimRuns.length > 1 ? await claimOverlayRuns(db, claimRuns) : { labels: [], overlayKey: "", analysing: false };
   return {
     stated: claim.checkedKey === null ? null : (claim.statedResults ?? null),
-    overlay: plots.flatMap((p) => (p.series ? [{ label: p.label, plot: p.series }] : [])),
+    overlay: { labels: overlay.labels, key: overlay.overlayKey },
     checkError: round!.checkError,
     claim: { id: claim.id, version: claim.version, figure: claim.figure, statement: claim.statement, record: claim.record },
     runs: runs.map((r) => ({ id: r.runId, label: r.label })),
@@ -98,8 +97,8 @@ export default function Claim({ loaderData: d, params }: Route.ComponentProps) {
         ) : null}
       </section>
       <StatedTable rows={d.stated} runIds={Object.fromEntries(runId)} params={p} />
-      {d.overlay.length > 1 ? (
-        <ComparisonChart runs={d.overlay} title={`The claim's runs overlaid: ${d.overlay.map((o) => o.label).join(", ")} (downsampled series)`} />
+      {d.overlay.labels.length > 1 ? (
+        <ClaimOverlayPanel plotsHref={href("/venues/:venueId/submissions/:submissionId/rounds/:round/claims/:claimId/plots", { ...p, claimId: d.claim.id })} overlayKey={d.overlay.key} />
       ) : null}
       <FlagsPanel
         view={d.flags}

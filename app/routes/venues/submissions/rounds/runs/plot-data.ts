@@ -1,4 +1,4 @@
-import { requireRound } from "~/access/page-guards.server";
+import { requireRoundOrNull } from "~/access/page-guards.server";
 import type { RunRecord } from "~/checker/schema";
 import { jsonWithEtag } from "~/lib/conditional-get.server";
 import { runPlotColumns } from "~/workspace/round-data.server";
@@ -16,14 +16,8 @@ const notFound = () => Response.json({ error: { message: "This run is not in the
  * charts' place can say that they could not be loaded.
  */
 export async function loader(args: Route.LoaderArgs) {
-  let guard: Awaited<ReturnType<typeof requireRound>>;
-  try {
-    guard = await requireRound(args, "read-runs");
-  } catch (e) {
-    // Only the policy's 404 (a thrown `data()`); a redirect to sign in goes on as it is.
-    if (!(e instanceof Response) && (e as { init?: ResponseInit | null })?.init?.status === 404) return notFound();
-    throw e;
-  }
+  const guard = await requireRoundOrNull(args, "read-runs");
+  if (!guard) return notFound();
   const { db, access } = guard;
   const run = await roundRun(db, access.round.id, args.params.runId);
   if (!run) return notFound();
