@@ -6,6 +6,7 @@ import { fmt } from "~/checker/types";
 import { parseFlagQuery, summariseGroups, type FlagCounts, type FlagGrouping } from "~/review/flag-table";
 import { z } from "zod";
 import { fieldForQuantity, fieldId } from "./run-form-fields";
+import type { TableFlag } from "./flag-table-shape";
 import { PANEL_OPEN_ALL_UP_TO, PANEL_ROWS_MAX, PANEL_ROWS_STEP, type FlagPanelView, type PanelFlag, type PanelRows, type PanelScope, type RuleWords } from "./flag-panel-shape";
 
 /** The rows route's query: one group of the panel (`key` "" is the group of unattached flags). */
@@ -79,25 +80,32 @@ async function readRows(db: Database, where: SQL[], limit: number): Promise<Pane
   return {
     total: rows[0]?.total ?? 0,
     rows: rows.map((f) => {
-      const d = f.detail;
       const path = f.quantities.map(fieldForQuantity).find(Boolean);
-      const source = show(d.source);
-      return {
-        id: f.id,
-        rule: f.rule,
-        severity: f.severity,
-        runLabel: f.runLabel,
-        field: f.runLabel && path ? fieldId(path) : null,
-        claimId: f.claimId,
-        claimRow: typeof d.claimRow === "number" ? d.claimRow : null,
-        message: f.message,
-        expected: show(d.expected),
-        found: show(d.found),
-        tolerance: show(d.tolerance),
-        source: source && source !== ruleById(f.rule)?.source ? source : null,
-        authorAnswer: f.authorAnswer,
-      };
+      return { ...storedFlagFacts(f), field: f.runLabel && path ? fieldId(path) : null };
     }),
+  };
+}
+
+/**
+ * A stored flag as the flags panel and the flags table both send it: numbers at four significant
+ * figures, and the flag's own source only where it differs from its rule's (the rule's words travel once).
+ */
+export function storedFlagFacts(f: Pick<typeof flags.$inferSelect, "id" | "rule" | "severity" | "runLabel" | "claimId" | "message" | "detail" | "authorAnswer">): TableFlag {
+  const d = f.detail as Record<string, unknown>;
+  const source = show(d.source);
+  return {
+    id: f.id,
+    rule: f.rule,
+    severity: f.severity,
+    runLabel: f.runLabel,
+    claimId: f.claimId,
+    claimRow: typeof d.claimRow === "number" ? d.claimRow : null,
+    message: f.message,
+    expected: show(d.expected),
+    found: show(d.found),
+    tolerance: show(d.tolerance),
+    source: source && source !== ruleById(f.rule)?.source ? source : null,
+    authorAnswer: f.authorAnswer,
   };
 }
 

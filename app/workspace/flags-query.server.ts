@@ -2,12 +2,8 @@ import { asc, eq } from "drizzle-orm";
 import type { Database } from "~db/client";
 import { claims, flags } from "~db/schema";
 import { FAMILIES, ruleById } from "~/checker/registry";
-import { fmt } from "~/checker/types";
-import { claimTitle } from "./flag-panel.server";
+import { claimTitle, storedFlagFacts } from "./flag-panel.server";
 import type { FlagTableData, TableRule } from "./flag-table-shape";
-
-/** Numbers to four significant figures in the checker's one format (the checker keeps full precision; people read four). */
-const show = (v: unknown) => (v === undefined || v === null ? null : typeof v === "number" ? fmt(v) : String(v));
 
 function tableRule(rule: string): TableRule {
   const info = ruleById(rule);
@@ -31,24 +27,9 @@ export async function roundFlagTable(db: Database, roundId: string): Promise<Fla
     .orderBy(asc(flags.severity), asc(flags.rule), asc(flags.runLabel), asc(flags.fingerprint), asc(flags.message));
   const data: FlagTableData = { rows: [], rules: {}, claims: {} };
   for (const { flag: f, figure, claimRecord } of found) {
-    const rule = (data.rules[f.rule] ??= tableRule(f.rule));
+    data.rules[f.rule] ??= tableRule(f.rule);
     if (f.claimId && !(f.claimId in data.claims)) data.claims[f.claimId] = claimTitle(figure, claimRecord);
-    const d = f.detail as Record<string, unknown>;
-    const source = show(d.source);
-    data.rows.push({
-      id: f.id,
-      rule: f.rule,
-      severity: f.severity,
-      runLabel: f.runLabel,
-      claimId: f.claimId,
-      claimRow: typeof d.claimRow === "number" ? d.claimRow : null,
-      message: f.message,
-      expected: show(d.expected),
-      found: show(d.found),
-      tolerance: show(d.tolerance),
-      source: source && source !== rule.source ? source : null,
-      authorAnswer: f.authorAnswer,
-    });
+    data.rows.push(storedFlagFacts(f));
   }
   return data;
 }
