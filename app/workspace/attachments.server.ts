@@ -1,5 +1,6 @@
 import { createHash, randomUUID } from "node:crypto";
 import { PassThrough } from "node:stream";
+import { setImmediate as nextTurn } from "node:timers/promises";
 import { and, eq } from "drizzle-orm";
 import type { Database } from "~db/client";
 import { attachments, roundRuns, storedFiles } from "~db/schema";
@@ -9,6 +10,9 @@ import { storage } from "~/storage/storage.server";
 import { markRoundChanged, requestRecheck } from "./recheck.server";
 import { draftRoundById } from "./rounds.server";
 import { InvalidInput, PayloadTooLarge, StorageUnavailable } from "./types";
+
+/** Parse at most this long before the event loop gets a turn (an upload must not stall other requests). */
+const YIELD_AFTER_MS = 8;
 
 export type AttachOptions = {
   roundId: string;
@@ -76,6 +80,7 @@ export async function attachCsv(db: Database, opts: AttachOptions): Promise<{ at
   // One pass over the body: count, hash, forward to storage (respecting its back-pressure), parse.
   async function* chunks() {
     const reader = opts.body.getReader();
+    let turnStarted = performance.now();
     try {
       for (;;) {
         const { done, value } = await reader.read();
@@ -98,6 +103,12 @@ export async function attachCsv(db: Database, opts: AttachOptions): Promise<{ at
           });
         }
         yield value;
+        // Chunks already buffered come back as settled promises, so the loop would parse a backlog of
+        // megabytes without giving the event loop a turn; probes, timers and other requests would wait.
+        if (performance.now() - turnStarted > YIELD_AFTER_MS) {
+          await nextTurn();
+          turnStarted = performance.now();
+        }
       }
     } finally {
       reader.releaseLock();
