@@ -1,8 +1,6 @@
 import { and, asc, desc, eq } from "drizzle-orm";
-import { auditLog, invitations, reviews, roundRuns, rounds, runs, user } from "~db/schema";
-import type { Db } from "~/workspace/types";
+import { auditLog, flags, invitations, reviews, roundRuns, rounds, runs, user } from "~db/schema";
 import type { RoundContext } from "./round-context.server";
-import { roundFlags } from "./documents.server";
 import { anchorLabels } from "./remarks.server";
 import { reportPartsOf } from "./reviews.server";
 import { renderRichText } from "./tiptap/render.server";
@@ -20,7 +18,8 @@ export async function editorialView(db: Database, ctx: RoundContext, opts: { sho
       .where(eq(reviews.roundId, ctx.round.id))
       .orderBy(asc(reviews.number)),
     db.select({ id: auditLog.id, action: auditLog.action, detail: auditLog.detail, at: auditLog.at, actor: user.name }).from(auditLog).leftJoin(user, eq(user.id, auditLog.actorId)).where(eq(auditLog.submissionId, ctx.submission.id)).orderBy(desc(auditLog.at)),
-    roundFlags(db, ctx.round.id),
+    // What the page says of the flags (counts, names in the reports); the table reads the flags after the page.
+    db.select({ id: flags.id, rule: flags.rule, runLabel: flags.runLabel, severity: flags.severity }).from(flags).where(eq(flags.roundId, ctx.round.id)),
     ctx.round.number > 1 ? db.select({ id: rounds.id }).from(rounds).where(and(eq(rounds.submissionId, ctx.submission.id), eq(rounds.number, ctx.round.number - 1))) : Promise.resolve([]),
     submittedVerdictsByFlag(db, ctx.round.id),
     db.select({ runId: runs.id, label: runs.label }).from(roundRuns).innerJoin(runs, eq(runs.id, roundRuns.runId)).where(eq(roundRuns.roundId, ctx.round.id)),
